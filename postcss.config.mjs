@@ -1,0 +1,2 @@
+// PostCSS pipeline: Tailwind 4 only.
+export default { plugins: { '@tailwindcss/postcss': {} } };

@@ -1,0 +1,15 @@
+// Vitest configuration: node environment, one file at a time (tests share one PostgreSQL test database).
+import { defineConfig } from 'vitest/config';
+import path from 'node:path';
+
+export default defineConfig({
+  resolve: { alias: { '@': path.resolve(__dirname) } },
+  test: {
+    environment: 'node',
+    fileParallelism: false,
+    include: ['tests/**/*.test.ts'],
+    testTimeout: 120_000,
+    hookTimeout: 180_000,
+    reporters: ['default'],
+  },
+});
