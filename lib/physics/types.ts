@@ -72,9 +72,14 @@ export interface EigenOptions {
   signal?: AbortSignal;
   /** Called with a fraction in [0, 1]. */
   onProgress?: (fraction: number) => void;
-  /** 'auto' picks by size and warm start; see lib/physics/eigen/index.ts. */
+  /** 'auto' picks by size and warm start; see lib/physics/eigen/choose-method.ts. */
   method?: 'auto' | 'lobpcg' | 'shift-invert' | 'dense';
+  /** Optional preconditioner T ~ (H - sigma)^-1 for LOBPCG: writes T r into out, column by column. */
+  preconditioner?: Preconditioner | null;
 }
+
+/** Applies an approximate inverse to a block of residuals (same n and k as the input), writing into `out`. */
+export type Preconditioner = (r: StateBlock, out: StateBlock) => void;
 
 export interface EigenResult {
   /** Ascending eigenvalues (length k). */
