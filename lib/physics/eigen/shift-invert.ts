@@ -1,7 +1,789 @@
-// Shift-invert eigensolver over a sparse LDL factorisation (being written; see lib/physics/eigen/ldl.ts).
-// Until it lands, asking for method 'shift-invert' is refused with a clear error.
-import type { CsrMatrix, EigenOptions, EigenResult } from '../types';
+// Shift-invert eigensolver for the lowest levels: a block Krylov (Davidson) space built with (H - sigma)^-1 from a
+// sparse LDL factorisation, Rayleigh-Ritz on H itself; plus an LDL preconditioner for LOBPCG scans.
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { csrMatVecColumns } from '../csr';
+import { throwIfAborted } from '../errors';
+import type { CsrMatrix, EigenOptions, EigenResult, Preconditioner, StateBlock } from '../types';
+import { analyzeLdl, factorLdl, LdlPivotError, matchesPattern, solveLdl, type LdlFactor, type LdlSymbolic } from './ldl';
+import type { NestedDissectionOptions } from './ordering';
 
-export function shiftInvertEigenpairs(_matrix: CsrMatrix, _k: number, _options: EigenOptions = {}): EigenResult {
-  throw new Error("eigen method 'shift-invert' is not available yet; use 'lobpcg' or 'auto'");
+export interface ShiftInvertOptions extends EigenOptions {
+  /** Shift below the wanted levels. Default: 0, or a Gershgorin lower bound of H when that is negative. */
+  sigma?: number;
+  /** Reuse a symbolic analysis of the same sparsity pattern (otherwise the last one is reused when it matches). */
+  symbolic?: LdlSymbolic | null;
+  /** Ordering hints for a fresh analysis (e.g. lattice coordinates). */
+  ordering?: NestedDissectionOptions;
+  /** Extra Ritz pairs tracked beyond k so that a level degenerate with level k does not stall. Default 2. */
+  guard?: number;
+  /** Largest search space before a thick restart. Default max(40, 8 (k + guard)). */
+  maxBasis?: number;
+  /** Block Krylov steps between two Rayleigh-Ritz steps. Default 2. */
+  depth?: number;
+}
+
+/** Default relative residual tolerance (see EigenOptions.tol). */
+export const DEFAULT_TOLERANCE = 1e-9;
+/** Default number of expansion steps. Cold solves of the bench cases need 4-8 (bench/results.json). */
+export const DEFAULT_MAX_ITERATIONS = 200;
+/** Block Krylov steps per Rayleigh-Ritz step: 2 halves the dense work per solve (bench/results.json). */
+export const DEFAULT_DEPTH = 2;
+/** A new direction whose norm falls below this fraction of its norm before orthogonalisation is dropped. */
+const DROP_TOLERANCE = 1e-10;
+
+/**
+ * Lowest k eigenpairs of a Hermitian CSR matrix by shift-invert.
+ *
+ * The search space starts from (H - sigma)^-1 applied to seeded random vectors (or from the warm start as is) and
+ * grows by (H - sigma)^-1 r for the residuals r of the tracked Ritz pairs: with an exact inverse this spans the
+ * same space as block Lanczos on (H - sigma)^-1, but the new directions are computed from small residuals, so
+ * nothing cancels as the pairs converge. Every step does Rayleigh-Ritz with H itself, and the reported residuals
+ * are ||H v - lambda v|| computed with H. sigma must lie below the spectrum: with Dirichlet walls and V >= 0, H is
+ * positive definite and sigma = 0 works; otherwise a Gershgorin lower bound is used, and the inertia of the LDL
+ * factorisation (no negative pivot) proves that no level lies below sigma.
+ *
+ * Complex Hermitian matrices use the complex LDL^H; the small dense Hermitian problems are solved through the real
+ * symmetric embedding [[A, -B], [B, A]] (PHYSICS.md section 2).
+ *
+ * @param matrix Hermitian CSR, both triangles; energies in hbar^2/(2 m L^2)
+ * @param k number of lowest levels, 1 <= k <= n
+ * @param options tolerance, seed, warm start (`initial`), `signal`, `onProgress`, `sigma`
+ * @returns ascending values, orthonormal vectors, residual norms; `converged` false when maxIter ran out
+ * @throws RangeError for bad k or options; LdlPivotError when a given sigma is not below the spectrum
+ * @example
+ * const { values } = shiftInvertEigenpairs(H, 4); // lowest four levels
+ * @see Y. Saad, Numerical Methods for Large Eigenvalue Problems, 2nd ed., SIAM (2011), sections 4.3 (shift-invert) and 8.3 (Davidson)
+ * @see E. R. Davidson, J. Comput. Phys. 17, 87 (1975)
+ */
+export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: ShiftInvertOptions = {}): EigenResult {
+  const n = matrix.n;
+  if (!Number.isInteger(k) || k < 1) throw new RangeError(`k must be a positive integer, got ${k}`);
+  if (k > n) throw new RangeError(`k = ${k} exceeds the number of unknowns n = ${n}`);
+  const tol = options.tol ?? DEFAULT_TOLERANCE;
+  if (!(tol > 0)) throw new RangeError(`tol must be positive, got ${tol}`);
+  const maxIter = options.maxIter ?? DEFAULT_MAX_ITERATIONS;
+  if (!Number.isInteger(maxIter) || maxIter < 1) throw new RangeError(`maxIter must be a positive integer, got ${maxIter}`);
+  const guard = Math.min(options.guard ?? 2, n - k);
+  if (!Number.isInteger(guard) || guard < 0) throw new RangeError(`guard must be a non-negative integer, got ${options.guard}`);
+  if (options.initial && options.initial.n !== n) {
+    throw new RangeError(`initial has n = ${options.initial.n} rows but the matrix has ${n}`);
+  }
+  const track = k + guard;
+  const depth = options.depth ?? DEFAULT_DEPTH;
+  if (!Number.isInteger(depth) || depth < 1) throw new RangeError(`depth must be a positive integer, got ${options.depth}`);
+  const maxBasis = Math.min(n, options.maxBasis ?? Math.max(40, 8 * track));
+  if (!Number.isInteger(maxBasis) || maxBasis < Math.min(n, (depth + 1) * track)) {
+    throw new RangeError(`maxBasis must be an integer >= (depth + 1) (k + guard) = ${(depth + 1) * track}, got ${options.maxBasis}`);
+  }
+  throwIfAborted(options.signal);
+
+  const factor = factorShifted(matrix, options);
+  const complex = matrix.im !== null;
+  const space = new SearchSpace(matrix, maxBasis, complex);
+  const rng = seededRandom(options.seed ?? 1);
+
+  // Start: warm vectors as they are, then random vectors smoothed by one inverse application.
+  const start = startBlock(n, track, complex, options.initial ?? null, rng);
+  const coldColumns = track - start.warm;
+  if (start.warm > 0) space.addColumns(start.block, 0, start.warm);
+  if (coldColumns > 0) {
+    const cold = sliceBlock(start.block, start.warm, coldColumns);
+    const smoothed = emptyBlock(n, coldColumns, complex);
+    solveLdl(factor, cold, smoothed);
+    space.addColumns(smoothed, 0, coldColumns);
+  }
+
+  let iterations = 0;
+  let best = space.ritz(track);
+  let firstResidual = -1;
+  let reported = 0;
+  while (true) {
+    const worst = maxRelative(best.residualNorms, best.values, k);
+    if (process.env.SI_DEBUG) console.log("it", iterations, space.size, Array.from(best.residualNorms).map((r, j) => (r / Math.max(1, best.values[j])).toExponential(1)).join(" "));
+    if (firstResidual < 0) firstResidual = Math.max(worst, tol * 10);
+    if (options.onProgress) {
+      const fraction = Math.min(1, Math.max(reported, Math.log(firstResidual / Math.max(worst, tol)) / Math.log(firstResidual / tol)));
+      if (fraction > reported) reported = fraction;
+      options.onProgress(reported);
+    }
+    if (worst <= tol || iterations >= maxIter) break;
+    throwIfAborted(options.signal);
+    iterations++;
+
+    // Corrections for the tracked pairs that have not converged yet (the first k decide convergence).
+    const pending: number[] = [];
+    for (let j = 0; j < track; j++) {
+      if (best.residualNorms[j] / Math.max(1, Math.abs(best.values[j])) > tol) pending.push(j);
+    }
+    const residuals = emptyBlock(n, pending.length, complex);
+    for (let t = 0; t < pending.length; t++) copyColumn(best.residuals, pending[t], residuals, t);
+    const corrections = emptyBlock(n, pending.length, complex);
+    solveLdl(factor, residuals, corrections);
+    const growth = depth * pending.length;
+    if (space.size + growth > maxBasis) space.restart(best, Math.max(track, Math.min(maxBasis - growth, 2 * track)));
+    let added = space.addColumns(corrections, 0, pending.length);
+    if (added === 0) break; // the space cannot grow: the pairs are as accurate as the arithmetic allows
+    // Further block Krylov steps on the newest directions before the next Rayleigh-Ritz (it costs more than they do).
+    for (let step = 1; step < depth && space.size + added <= maxBasis; step++) {
+      const newest = space.columns(space.size - added, added);
+      const next = emptyBlock(n, added, complex);
+      solveLdl(factor, newest, next);
+      added = space.addColumns(next, 0, added);
+      if (added === 0) break;
+    }
+    best = space.ritz(track);
+  }
+
+  // Final residuals with H itself on the returned vectors.
+  const vectors = sliceBlock(best.vectors, 0, k);
+  const hv = emptyBlock(n, k, complex);
+  csrMatVecColumns(matrix, vectors.re, vectors.im, hv.re, hv.im, k);
+  const values = best.values.slice(0, k);
+  const residualNorms = new Float64Array(k);
+  for (let j = 0; j < k; j++) residualNorms[j] = residualNorm(hv, vectors, j, values[j]);
+  const converged = maxRelative(residualNorms, values, k) <= tol;
+  options.onProgress?.(1);
+  return { values, vectors, residualNorms, iterations, converged, method: 'shift-invert' };
+}
+
+/**
+ * An approximate inverse (A - sigma)^-1 for preconditioned iterations (LOBPCG), from one LDL factorisation of a
+ * nearby matrix, e.g. the same lattice without flux (real, cheaper) for a whole scan of tube positions.
+ * A real factor accepts complex residual blocks (real and imaginary parts solved separately).
+ *
+ * @param matrix Hermitian CSR, both triangles; the matrix whose inverse approximates the wanted one
+ * @param sigma shift; default as in shiftInvertEigenpairs (0, or a Gershgorin lower bound when negative)
+ * @returns a Preconditioner writing (A - sigma)^-1 r into `out` (out.im required when r or A is complex)
+ * @example
+ * const precondition = factorPreconditioner(buildHamiltonian(lattice, [])); // zero-flux lattice
+ * lobpcgEigenpairs(H, 4, { preconditioner: precondition });
+ */
+export function factorPreconditioner(matrix: CsrMatrix, sigma?: number): Preconditioner {
+  const factor = factorShifted(matrix, { sigma });
+  return (r: StateBlock, out: StateBlock) => solveLdl(factor, r, out);
+}
+
+/**
+ * Lower bound of the spectrum by Gershgorin discs: min over rows of A_ii - sum_{j != i} |A_ij|.
+ * @example
+ * gershgorinLowerBound(H); // 0 for the Dirichlet 5-point Laplacian without potential
+ */
+export function gershgorinLowerBound(matrix: CsrMatrix): number {
+  const { n, rowPtr, colIdx, re, im } = matrix;
+  let bound = Infinity;
+  for (let i = 0; i < n; i++) {
+    let diag = 0;
+    let off = 0;
+    for (let q = rowPtr[i]; q < rowPtr[i + 1]; q++) {
+      if (colIdx[q] === i) diag += re[q];
+      else off += im ? Math.hypot(re[q], im[q]) : Math.abs(re[q]);
+    }
+    bound = Math.min(bound, diag - off);
+  }
+  return n > 0 ? bound : 0;
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Factorisation with a checked shift, reusing the last symbolic analysis when the pattern matches.
+
+let lastSymbolic: LdlSymbolic | null = null;
+
+function factorShifted(matrix: CsrMatrix, options: Pick<ShiftInvertOptions, 'sigma' | 'symbolic' | 'ordering'>): LdlFactor {
+  let symbolic = options.symbolic ?? null;
+  if (!symbolic) {
+    symbolic = lastSymbolic && matchesPattern(lastSymbolic, matrix) ? lastSymbolic : analyzeLdl(matrix, options.ordering);
+    lastSymbolic = symbolic;
+  }
+  if (options.sigma !== undefined) {
+    if (!Number.isFinite(options.sigma)) throw new RangeError(`sigma must be a finite number, got ${options.sigma}`);
+    return factorLdl(matrix, { sigma: options.sigma, symbolic });
+  }
+  const lower = gershgorinLowerBound(matrix);
+  const sigma = Math.min(0, lower);
+  try {
+    return factorLdl(matrix, { sigma, symbolic });
+  } catch (error) {
+    if (!(error instanceof LdlPivotError)) throw error;
+    // sigma = 0 touched the spectrum (e.g. a zero level): step below the Gershgorin bound, which is safe.
+    const margin = 1e-3 * Math.max(1, Math.abs(lower), diagonalMagnitude(matrix));
+    return factorLdl(matrix, { sigma: Math.min(sigma, lower) - margin, symbolic });
+  }
+}
+
+function diagonalMagnitude(matrix: CsrMatrix): number {
+  let m = 0;
+  for (let i = 0; i < matrix.n; i++) {
+    for (let q = matrix.rowPtr[i]; q < matrix.rowPtr[i + 1]; q++) {
+      if (matrix.colIdx[q] === i) m = Math.max(m, Math.abs(matrix.re[q]));
+    }
+  }
+  return m;
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Search space: orthonormal basis Q, H Q and the projected matrix G = Q^H H Q.
+
+interface RitzPairs {
+  values: Float64Array;
+  vectors: StateBlock;
+  hvectors: StateBlock;
+  residuals: StateBlock;
+  residualNorms: Float64Array;
+}
+
+class SearchSpace {
+  readonly n: number;
+  size = 0;
+  private readonly qre: Float64Array;
+  private readonly qim: Float64Array | null;
+  private readonly hre: Float64Array;
+  private readonly him: Float64Array | null;
+  private readonly gre: Float64Array;
+  private readonly gim: Float64Array | null;
+
+  constructor(
+    private readonly matrix: CsrMatrix,
+    private readonly capacity: number,
+    private readonly complex: boolean,
+  ) {
+    this.n = matrix.n;
+    this.qre = new Float64Array(capacity * this.n);
+    this.qim = complex ? new Float64Array(capacity * this.n) : null;
+    this.hre = new Float64Array(capacity * this.n);
+    this.him = complex ? new Float64Array(capacity * this.n) : null;
+    this.gre = new Float64Array(capacity * capacity);
+    this.gim = complex ? new Float64Array(capacity * capacity) : null;
+  }
+
+  /**
+   * Orthonormalise columns [from, from + count) of `block` against the basis (block classical Gram-Schmidt,
+   * twice: "twice is enough", Giraud et al., Numer. Math. 101, 87 (2005)), then among themselves, and append the
+   * ones that keep more than DROP_TOLERANCE of their norm. Returns how many were appended.
+   */
+  addColumns(block: StateBlock, from: number, count: number): number {
+    const { n, size } = this;
+    const p = Math.min(count, this.capacity - size);
+    if (p <= 0) return 0;
+    const at = size * n;
+    const wr = this.qre.subarray(at, at + p * n);
+    const wi = this.qim ? this.qim.subarray(at, at + p * n) : null;
+    wr.set(block.re.subarray(from * n, (from + p) * n));
+    if (wi) {
+      if (block.im) wi.set(block.im.subarray(from * n, (from + p) * n));
+      else wi.fill(0);
+    }
+    const before = new Float64Array(p);
+    for (let t = 0; t < p; t++) before[t] = Math.sqrt(columnNormSquared(wr, wi, n, t));
+    if (size > 0) {
+      const cr = new Float64Array(size * p);
+      const ci = this.complex ? new Float64Array(size * p) : null;
+      for (let pass = 0; pass < 2; pass++) {
+        projectCoefficients(this.qre, this.qim, size, wr, wi, p, n, cr, ci);
+        subtractProjection(this.qre, this.qim, size, wr, wi, p, n, cr, ci);
+      }
+    }
+    // Within the block: modified Gram-Schmidt, twice, with compaction of the accepted columns.
+    let accepted = 0;
+    for (let t = 0; t < p; t++) {
+      const vr = wr.subarray(t * n, (t + 1) * n);
+      const vi = wi ? wi.subarray(t * n, (t + 1) * n) : null;
+      if (!(before[t] > 0) || !Number.isFinite(before[t])) continue;
+      for (let pass = 0; pass < 2; pass++) {
+        for (let s = 0; s < accepted; s++) {
+          const ur = wr.subarray(s * n, (s + 1) * n);
+          const ui = wi ? wi.subarray(s * n, (s + 1) * n) : null;
+          removeComponent(ur, ui, vr, vi, n);
+        }
+      }
+      const after = Math.sqrt(columnNormSquared(vr, vi, n, 0));
+      if (!(after > DROP_TOLERANCE * before[t])) continue;
+      const inv = 1 / after;
+      const dr = wr.subarray(accepted * n, (accepted + 1) * n);
+      for (let i = 0; i < n; i++) dr[i] = vr[i] * inv;
+      if (wi && vi) {
+        const di = wi.subarray(accepted * n, (accepted + 1) * n);
+        for (let i = 0; i < n; i++) di[i] = vi[i] * inv;
+      }
+      accepted++;
+    }
+    if (accepted === 0) return 0;
+    // H on the new columns, then the new columns of G = Q^H H Q.
+    const hr = this.hre.subarray(at, at + accepted * n);
+    const hi = this.him ? this.him.subarray(at, at + accepted * n) : null;
+    csrMatVecColumns(this.matrix, wr.subarray(0, accepted * n), wi ? wi.subarray(0, accepted * n) : null, hr, hi, accepted);
+    const total = size + accepted;
+    const gr = new Float64Array(total * accepted);
+    const gi = this.complex ? new Float64Array(total * accepted) : null;
+    projectCoefficients(this.qre, this.qim, total, hr, hi, accepted, n, gr, gi);
+    const cap = this.capacity;
+    for (let j = 0; j < total; j++) {
+      for (let t = 0; t < accepted; t++) {
+        const col = size + t;
+        const vr = gr[j * accepted + t];
+        const vi = gi ? (j === col ? 0 : gi[j * accepted + t]) : 0;
+        if (j > col) continue; // the entry below the diagonal comes from the later column (Hermitian)
+        this.gre[j * cap + col] = vr;
+        this.gre[col * cap + j] = vr;
+        if (this.gim) {
+          this.gim[j * cap + col] = vi;
+          this.gim[col * cap + j] = -vi;
+        }
+      }
+    }
+    this.size = total;
+    return accepted;
+  }
+
+  /** Copy of basis columns [from, from + count). */
+  columns(from: number, count: number): StateBlock {
+    const { n } = this;
+    return {
+      n,
+      k: count,
+      re: this.qre.slice(from * n, (from + count) * n),
+      im: this.qim ? this.qim.slice(from * n, (from + count) * n) : null,
+    };
+  }
+
+  /** Rayleigh-Ritz with H: the lowest `count` Ritz pairs with their residuals H x - theta x. */
+  ritz(count: number): RitzPairs {
+    const { n, size } = this;
+    const want = Math.min(count, size);
+    const eig = hermitianEigen(this.gre, this.gim, size, this.capacity, want);
+    const vectors = emptyBlock(n, want, this.complex);
+    const hvectors = emptyBlock(n, want, this.complex);
+    combineColumns(this.qre, this.qim, size, eig.vre, eig.vim, want, n, vectors);
+    combineColumns(this.hre, this.him, size, eig.vre, eig.vim, want, n, hvectors);
+    const residuals = emptyBlock(n, want, this.complex);
+    const residualNorms = new Float64Array(want);
+    for (let j = 0; j < want; j++) {
+      const theta = eig.values[j];
+      let sum = 0;
+      for (let i = j * n; i < (j + 1) * n; i++) {
+        const r = hvectors.re[i] - theta * vectors.re[i];
+        residuals.re[i] = r;
+        sum += r * r;
+      }
+      if (this.complex) {
+        for (let i = j * n; i < (j + 1) * n; i++) {
+          const r = hvectors.im![i] - theta * vectors.im![i];
+          residuals.im![i] = r;
+          sum += r * r;
+        }
+      }
+      residualNorms[j] = Math.sqrt(sum);
+    }
+    return { values: eig.values, vectors, hvectors, residuals, residualNorms };
+  }
+
+  /** Thick restart: keep the lowest `keep` Ritz vectors of the current space, drop the rest. */
+  restart(current: RitzPairs, keep: number): void {
+    const { n } = this;
+    const pairs = current.vectors.k >= keep ? current : this.ritz(keep);
+    const kept = Math.min(keep, pairs.vectors.k);
+    this.qre.set(pairs.vectors.re.subarray(0, kept * n));
+    this.hre.set(pairs.hvectors.re.subarray(0, kept * n));
+    if (this.qim) this.qim.set(pairs.vectors.im!.subarray(0, kept * n));
+    if (this.him) this.him.set(pairs.hvectors.im!.subarray(0, kept * n));
+    this.gre.fill(0);
+    this.gim?.fill(0);
+    for (let j = 0; j < kept; j++) this.gre[j * this.capacity + j] = pairs.values[j];
+    this.size = kept;
+  }
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Dense block kernels on column-major blocks, in row chunks so that a chunk of every column stays in cache.
+
+/** Rows per chunk: 36 basis columns x 2048 rows x 8 bytes stay within a typical L2 cache (common practice). */
+const CHUNK = 2048;
+
+/** C[j * p + t] = <q_j, w_t> = sum_i conj(q_j[i]) w_t[i] for j < m, t < p. */
+function projectCoefficients(
+  qr: Float64Array,
+  qi: Float64Array | null,
+  m: number,
+  wr: Float64Array,
+  wi: Float64Array | null,
+  p: number,
+  n: number,
+  cr: Float64Array,
+  ci: Float64Array | null,
+): void {
+  cr.fill(0, 0, m * p);
+  ci?.fill(0, 0, m * p);
+  for (let i0 = 0; i0 < n; i0 += CHUNK) {
+    const i1 = Math.min(n, i0 + CHUNK);
+    for (let t = 0; t < p; t++) {
+      const wo = t * n;
+      let j = 0;
+      if (!qi || !wi || !ci) {
+        // Four basis columns per pass over w: one load of w[i] feeds four products.
+        for (; j + 3 < m; j += 4) {
+          const q0 = j * n;
+          const q1 = q0 + n;
+          const q2 = q1 + n;
+          const q3 = q2 + n;
+          let s0 = 0;
+          let s1 = 0;
+          let s2 = 0;
+          let s3 = 0;
+          for (let i = i0; i < i1; i++) {
+            const w = wr[wo + i];
+            s0 += qr[q0 + i] * w;
+            s1 += qr[q1 + i] * w;
+            s2 += qr[q2 + i] * w;
+            s3 += qr[q3 + i] * w;
+          }
+          cr[j * p + t] += s0;
+          cr[(j + 1) * p + t] += s1;
+          cr[(j + 2) * p + t] += s2;
+          cr[(j + 3) * p + t] += s3;
+        }
+        for (; j < m; j++) {
+          const qo = j * n;
+          let s0 = 0;
+          for (let i = i0; i < i1; i++) s0 += qr[qo + i] * wr[wo + i];
+          cr[j * p + t] += s0;
+        }
+        continue;
+      }
+      for (; j < m; j++) {
+        const qo = j * n;
+        let sr = 0;
+        let si = 0;
+        for (let i = i0; i < i1; i++) {
+          const ar = qr[qo + i];
+          const ai = qi[qo + i];
+          const br = wr[wo + i];
+          const bi = wi[wo + i];
+          sr += ar * br + ai * bi;
+          si += ar * bi - ai * br;
+        }
+        cr[j * p + t] += sr;
+        ci[j * p + t] += si;
+      }
+    }
+  }
+}
+
+/** w_t -= sum_j q_j C[j * p + t]. */
+function subtractProjection(
+  qr: Float64Array,
+  qi: Float64Array | null,
+  m: number,
+  wr: Float64Array,
+  wi: Float64Array | null,
+  p: number,
+  n: number,
+  cr: Float64Array,
+  ci: Float64Array | null,
+): void {
+  for (let i0 = 0; i0 < n; i0 += CHUNK) {
+    const i1 = Math.min(n, i0 + CHUNK);
+    for (let t = 0; t < p; t++) {
+      const wo = t * n;
+      let j = 0;
+      if (!qi || !wi || !ci) {
+        for (; j + 3 < m; j += 4) {
+          const q0 = j * n;
+          const q1 = q0 + n;
+          const q2 = q1 + n;
+          const q3 = q2 + n;
+          const a0 = cr[j * p + t];
+          const a1 = cr[(j + 1) * p + t];
+          const a2 = cr[(j + 2) * p + t];
+          const a3 = cr[(j + 3) * p + t];
+          for (let i = i0; i < i1; i++) {
+            wr[wo + i] -= a0 * qr[q0 + i] + a1 * qr[q1 + i] + a2 * qr[q2 + i] + a3 * qr[q3 + i];
+          }
+        }
+        for (; j < m; j++) {
+          const qo = j * n;
+          const a0 = cr[j * p + t];
+          for (let i = i0; i < i1; i++) wr[wo + i] -= a0 * qr[qo + i];
+        }
+        continue;
+      }
+      for (; j < m; j++) {
+        const qo = j * n;
+        const ar = cr[j * p + t];
+        const ai = ci[j * p + t];
+        for (let i = i0; i < i1; i++) {
+          const br = qr[qo + i];
+          const bi = qi[qo + i];
+          wr[wo + i] -= ar * br - ai * bi;
+          wi[wo + i] -= ar * bi + ai * br;
+        }
+      }
+    }
+  }
+}
+
+/** x_t = sum_j q_j Y[t * m + j] for t < want (complex when Q or Y is). */
+function combineColumns(
+  qr: Float64Array,
+  qi: Float64Array | null,
+  m: number,
+  yr: Float64Array,
+  yi: Float64Array | null,
+  want: number,
+  n: number,
+  out: StateBlock,
+): void {
+  const xr = out.re;
+  const xi = out.im;
+  xr.fill(0, 0, want * n);
+  xi?.fill(0, 0, want * n);
+  for (let i0 = 0; i0 < n; i0 += CHUNK) {
+    const i1 = Math.min(n, i0 + CHUNK);
+    for (let t = 0; t < want; t++) {
+      const xo = t * n;
+      let j = 0;
+      if (!qi || !xi) {
+        for (; j + 3 < m; j += 4) {
+          const q0 = j * n;
+          const q1 = q0 + n;
+          const q2 = q1 + n;
+          const q3 = q2 + n;
+          const a0 = yr[t * m + j];
+          const a1 = yr[t * m + j + 1];
+          const a2 = yr[t * m + j + 2];
+          const a3 = yr[t * m + j + 3];
+          for (let i = i0; i < i1; i++) {
+            xr[xo + i] += a0 * qr[q0 + i] + a1 * qr[q1 + i] + a2 * qr[q2 + i] + a3 * qr[q3 + i];
+          }
+        }
+        for (; j < m; j++) {
+          const qo = j * n;
+          const a0 = yr[t * m + j];
+          for (let i = i0; i < i1; i++) xr[xo + i] += a0 * qr[qo + i];
+        }
+        continue;
+      }
+      for (; j < m; j++) {
+        const qo = j * n;
+        const ar = yr[t * m + j];
+        const ai = yi ? yi[t * m + j] : 0;
+        for (let i = i0; i < i1; i++) {
+          const br = qr[qo + i];
+          const bi = qi[qo + i];
+          xr[xo + i] += ar * br - ai * bi;
+          xi[xo + i] += ar * bi + ai * br;
+        }
+      }
+    }
+  }
+}
+
+/** v -= <u, v> u for a unit vector u. */
+function removeComponent(ur: Float64Array, ui: Float64Array | null, vr: Float64Array, vi: Float64Array | null, n: number): void {
+  let cr = 0;
+  let ci = 0;
+  for (let i = 0; i < n; i++) cr += ur[i] * vr[i];
+  if (ui && vi) {
+    for (let i = 0; i < n; i++) {
+      cr += ui[i] * vi[i];
+      ci += ur[i] * vi[i] - ui[i] * vr[i];
+    }
+    for (let i = 0; i < n; i++) {
+      vr[i] -= cr * ur[i] - ci * ui[i];
+      vi[i] -= cr * ui[i] + ci * ur[i];
+    }
+    return;
+  }
+  for (let i = 0; i < n; i++) vr[i] -= cr * ur[i];
+}
+
+function columnNormSquared(vr: Float64Array, vi: Float64Array | null, n: number, t: number): number {
+  let s = 0;
+  for (let i = t * n; i < (t + 1) * n; i++) s += vr[i] * vr[i];
+  if (vi) for (let i = t * n; i < (t + 1) * n; i++) s += vi[i] * vi[i];
+  return s;
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Small dense Hermitian eigenproblem (ml-matrix, real symmetric embedding for the complex case).
+
+/**
+ * Lowest `want` eigenpairs of the m x m Hermitian matrix G (row stride `stride`), vectors as columns of length m.
+ * Complex G = A + iB is embedded as [[A, -B], [B, A]]: each eigenvalue appears twice, with (u; v) and (-v; u)
+ * standing for u + iv and i (u + iv); complex Gram-Schmidt picks one vector per complex direction.
+ */
+function hermitianEigen(
+  gre: Float64Array,
+  gim: Float64Array | null,
+  m: number,
+  stride: number,
+  want: number,
+): { values: Float64Array; vre: Float64Array; vim: Float64Array | null } {
+  if (!gim) {
+    const a = new Matrix(m, m);
+    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) a.set(i, j, 0.5 * (gre[i * stride + j] + gre[j * stride + i]));
+    const evd = new EigenvalueDecomposition(a, { assumeSymmetric: true });
+    const order = sortedOrder(evd.realEigenvalues);
+    const V = evd.eigenvectorMatrix;
+    const values = new Float64Array(want);
+    const vre = new Float64Array(m * want);
+    for (let t = 0; t < want; t++) {
+      values[t] = evd.realEigenvalues[order[t]];
+      for (let i = 0; i < m; i++) vre[t * m + i] = V.get(i, order[t]);
+    }
+    return { values, vre, vim: null };
+  }
+  const a = new Matrix(2 * m, 2 * m);
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j < m; j++) {
+      const re = 0.5 * (gre[i * stride + j] + gre[j * stride + i]);
+      const im = 0.5 * (gim[i * stride + j] - gim[j * stride + i]);
+      a.set(i, j, re);
+      a.set(i + m, j + m, re);
+      a.set(i, j + m, -im);
+      a.set(i + m, j, im);
+    }
+  }
+  const evd = new EigenvalueDecomposition(a, { assumeSymmetric: true });
+  const order = sortedOrder(evd.realEigenvalues);
+  const V = evd.eigenvectorMatrix;
+  const values = new Float64Array(want);
+  const vre = new Float64Array(m * want);
+  const vim = new Float64Array(m * want);
+  let taken = 0;
+  for (let t = 0; t < order.length && taken < want; t++) {
+    const ur = new Float64Array(m);
+    const ui = new Float64Array(m);
+    for (let i = 0; i < m; i++) {
+      ur[i] = V.get(i, order[t]);
+      ui[i] = V.get(i + m, order[t]);
+    }
+    const before = Math.sqrt(dotSelf(ur, ui));
+    for (let pass = 0; pass < 2; pass++) {
+      for (let s = 0; s < taken; s++) {
+        const pr = vre.subarray(s * m, (s + 1) * m);
+        const pi = vim.subarray(s * m, (s + 1) * m);
+        let cr = 0;
+        let ci = 0;
+        for (let i = 0; i < m; i++) {
+          cr += pr[i] * ur[i] + pi[i] * ui[i];
+          ci += pr[i] * ui[i] - pi[i] * ur[i];
+        }
+        for (let i = 0; i < m; i++) {
+          ur[i] -= cr * pr[i] - ci * pi[i];
+          ui[i] -= cr * pi[i] + ci * pr[i];
+        }
+      }
+    }
+    const after = Math.sqrt(dotSelf(ur, ui));
+    if (after < 0.5 * before) continue; // the partner i(u + iv) of a direction already taken
+    for (let i = 0; i < m; i++) {
+      vre[taken * m + i] = ur[i] / after;
+      vim[taken * m + i] = ui[i] / after;
+    }
+    values[taken] = evd.realEigenvalues[order[t]];
+    taken++;
+  }
+  return { values, vre, vim };
+}
+
+function sortedOrder(values: number[]): number[] {
+  return values.map((_, i) => i).sort((x, y) => values[x] - values[y] || x - y);
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Block helpers.
+
+function emptyBlock(n: number, k: number, complex: boolean): StateBlock {
+  return { n, k, re: new Float64Array(n * k), im: complex ? new Float64Array(n * k) : null };
+}
+
+function sliceBlock(block: StateBlock, from: number, count: number): StateBlock {
+  const { n } = block;
+  return {
+    n,
+    k: count,
+    re: block.re.slice(from * n, (from + count) * n),
+    im: block.im ? block.im.slice(from * n, (from + count) * n) : null,
+  };
+}
+
+function copyColumn(src: StateBlock, from: number, dst: StateBlock, to: number): void {
+  const { n } = src;
+  dst.re.set(src.re.subarray(from * n, (from + 1) * n), to * n);
+  if (dst.im) {
+    if (src.im) dst.im.set(src.im.subarray(from * n, (from + 1) * n), to * n);
+    else dst.im.fill(0, to * n, (to + 1) * n);
+  }
+}
+
+/** Warm-start columns first (real part, or imaginary part when larger, for a real problem), then seeded random. */
+function startBlock(
+  n: number,
+  track: number,
+  complex: boolean,
+  initial: StateBlock | null,
+  rng: () => number,
+): { block: StateBlock; warm: number } {
+  const block = emptyBlock(n, track, complex);
+  const warm = initial ? Math.min(initial.k, track) : 0;
+  for (let c = 0; c < warm; c++) {
+    const src = initial!;
+    const re = src.re.subarray(c * n, (c + 1) * n);
+    const im = src.im ? src.im.subarray(c * n, (c + 1) * n) : null;
+    if (complex) {
+      block.re.set(re, c * n);
+      if (im) block.im!.set(im, c * n);
+    } else {
+      const useIm = im !== null && dotSelf(im, null) > dotSelf(re, null);
+      block.re.set(useIm ? im! : re, c * n);
+    }
+  }
+  for (let i = warm * n; i < track * n; i++) block.re[i] = rng() - 0.5;
+  if (complex) for (let i = warm * n; i < track * n; i++) block.im![i] = rng() - 0.5;
+  return { block, warm };
+}
+
+function dotSelf(vr: Float64Array, vi: Float64Array | null): number {
+  let s = 0;
+  for (let i = 0; i < vr.length; i++) s += vr[i] * vr[i];
+  if (vi) for (let i = 0; i < vi.length; i++) s += vi[i] * vi[i];
+  return s;
+}
+
+function scale(vr: Float64Array, vi: Float64Array | null, factor: number): void {
+  for (let i = 0; i < vr.length; i++) vr[i] *= factor;
+  if (vi) for (let i = 0; i < vi.length; i++) vi[i] *= factor;
+}
+
+function residualNorm(hv: StateBlock, v: StateBlock, j: number, lambda: number): number {
+  const { n } = v;
+  let s = 0;
+  for (let i = j * n; i < (j + 1) * n; i++) {
+    const r = hv.re[i] - lambda * v.re[i];
+    s += r * r;
+  }
+  if (v.im && hv.im) {
+    for (let i = j * n; i < (j + 1) * n; i++) {
+      const r = hv.im[i] - lambda * v.im[i];
+      s += r * r;
+    }
+  }
+  return Math.sqrt(s);
+}
+
+function maxRelative(norms: Float64Array, values: Float64Array, k: number): number {
+  let worst = 0;
+  for (let j = 0; j < Math.min(k, norms.length); j++) worst = Math.max(worst, norms[j] / Math.max(1, Math.abs(values[j])));
+  return worst;
+}
+
+/** Deterministic uniform numbers in [0, 1) (mulberry32; common practice for seeded test data). */
+function seededRandom(seed: number): () => number {
+  let state = (seed >>> 0) ^ 0x9e3779b9;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
 }

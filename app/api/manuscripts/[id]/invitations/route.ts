@@ -1,0 +1,8 @@
+// GET: the invitations of a manuscript that are still pending (owners).
+import { listPendingInvitations } from '@/db/queries/invitations';
+import { route } from '@/lib/http/handler';
+import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
+
+export const GET = route({ params: manuscriptParamsSchema, manuscript: 'manage' }, async ({ access }) => ({
+  invitations: await listPendingInvitations({ manuscriptId: access.manuscript.id }),
+}));

@@ -1,0 +1,43 @@
+// GET: the members of a manuscript with their roles (any member). POST: an owner invites an e-mail address
+// into a role (201); the invitation e-mail carries the acceptance link.
+import { createInvitation, deleteInvitationById, INVITATION_LIFETIME_MS } from '@/db/queries/invitations';
+import { listMembers } from '@/db/queries/members';
+import { invitationMail } from '@/lib/invitations/invitation-mail';
+import { appUrl } from '@/lib/http/app-url';
+import { HttpError } from '@/lib/http/errors';
+import { route } from '@/lib/http/handler';
+import { sendMail } from '@/lib/mail/send-mail';
+import { createInvitationSchema } from '@/lib/validations/invitation';
+import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
+
+export const GET = route({ params: manuscriptParamsSchema, manuscript: 'read' }, async ({ access }) => ({
+  members: await listMembers({ manuscriptId: access.manuscript.id }),
+}));
+
+export const POST = route(
+  { params: manuscriptParamsSchema, body: createInvitationSchema, manuscript: 'manage', status: 201 },
+  async ({ request, user, access, body }) => {
+    const { invitation, token } = await createInvitation({
+      manuscriptId: access.manuscript.id,
+      email: body.email,
+      role: body.role,
+      invitedById: user.id,
+    });
+    const mail = invitationMail({
+      url: `${appUrl(request)}/invite/${token}`,
+      inviterName: user.name || user.email,
+      manuscriptTitle: access.manuscript.title,
+      role: body.role,
+      days: Math.round(INVITATION_LIFETIME_MS / 86_400_000),
+    });
+    try {
+      await sendMail({ to: invitation.email, ...mail });
+    } catch (error) {
+      console.error(error);
+      await deleteInvitationById({ id: invitation.id });
+      throw new HttpError(502, 'The invitation e-mail could not be sent; try again in a moment');
+    }
+    const { id, email, role, createdAt, expiresAt } = invitation;
+    return { invitation: { id, email, role, createdAt, expiresAt } };
+  },
+);

@@ -1,0 +1,19 @@
+// GET: the caller's manuscripts with their role (site admins: ?scope=all for every manuscript).
+// POST: create a manuscript with the caller as owner (201).
+import { createManuscript, listAllManuscripts, listManuscriptsForUser } from '@/db/queries/manuscripts';
+import { forbidden } from '@/lib/http/errors';
+import { route } from '@/lib/http/handler';
+import { createManuscriptSchema, manuscriptListQuerySchema } from '@/lib/validations/manuscript';
+
+export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, query }) => {
+  if (query.scope === 'all') {
+    if (!user.isAdmin) throw forbidden('Only site admins may list every manuscript');
+    return { manuscripts: await listAllManuscripts({ userId: user.id }) };
+  }
+  return { manuscripts: await listManuscriptsForUser({ userId: user.id }) };
+});
+
+export const POST = route({ body: createManuscriptSchema, status: 201 }, async ({ user, body }) => {
+  const manuscript = await createManuscript({ ownerId: user.id, title: body.title, abstract: body.abstract });
+  return { manuscript };
+});

@@ -1,0 +1,4 @@
+// GET: the signed-in user (id, name, e-mail, site-admin flag); 401 without a session.
+import { route } from '@/lib/http/handler';
+
+export const GET = route({}, async ({ user }) => ({ user }));

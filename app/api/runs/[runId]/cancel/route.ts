@@ -1,0 +1,13 @@
+// POST /api/runs/[runId]/cancel: cancel a queued or running run (authors). 409 when it has already finished.
+import { route } from '@/lib/http/handler';
+import { cancelRun } from '@/lib/runs/cancel-run';
+import { authorizeRun } from '@/lib/runs/resource-access';
+import { runParamsSchema } from '@/lib/validations/figure';
+
+export const runtime = 'nodejs';
+export const dynamic = 'force-dynamic';
+
+export const POST = route({ params: runParamsSchema }, async ({ params, user }) => {
+  const { run } = await authorizeRun({ user, runId: params.runId, need: 'run' });
+  return { run: await cancelRun({ run }) };
+});

@@ -1,0 +1,106 @@
+// Owners' invite form (POST /api/manuscripts/[id]/members) and the list of invitations still pending.
+'use client';
+
+import { useRef, useState, type FormEvent } from 'react';
+import { usePendingInvitations } from '@/hooks/use-pending-invitations';
+import { ROLE_DESCRIPTIONS, ROLE_LABELS, ROLES } from '@/lib/authz/roles';
+import { ApiError, sendJson } from '@/lib/fetcher';
+import { MAX_EMAIL } from '@/lib/validations/common';
+import { createInvitationSchema } from '@/lib/validations/invitation';
+import { RoleBadge } from '../../_components/badges';
+import { Button } from '../../_components/button';
+import { SelectField, TextField } from '../../_components/field';
+import { FormAlert } from '../../_components/form-alert';
+import { formValues, parseWith, type FieldErrors } from '../../_components/form-fields';
+import { RelativeTime } from '../../_components/relative-time';
+import { useToast } from '../../_components/toaster';
+
+export function InvitePanel({ manuscriptId }: { manuscriptId: string }) {
+  const toast = useToast();
+  const formRef = useRef<HTMLFormElement>(null);
+  const { invitations, mutate } = usePendingInvitations(manuscriptId);
+  const [fields, setFields] = useState<FieldErrors>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [role, setRole] = useState<(typeof ROLES)[number]>('coauthor');
+
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    setMessage(null);
+    const parsed = parseWith(createInvitationSchema, formValues(event.currentTarget));
+    if (!parsed.ok) return setFields(parsed.fields);
+    setFields({});
+    setBusy(true);
+    try {
+      await sendJson(`/api/manuscripts/${manuscriptId}/members`, { method: 'POST', body: parsed.data });
+      toast(`Invitation sent to ${parsed.data.email}`);
+      formRef.current?.reset();
+      setRole('coauthor');
+      await mutate();
+    } catch (error) {
+      if (error instanceof ApiError) {
+        setFields(error.fields);
+        setMessage(error.message);
+      }
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  return (
+    <div className="space-y-6">
+      <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-4" data-testid="invite-form">
+        {message && <FormAlert>{message}</FormAlert>}
+        <div className="grid gap-4 sm:grid-cols-[minmax(0,1fr)_12rem]">
+          <TextField
+            label="E-mail address"
+            name="email"
+            type="email"
+            autoComplete="off"
+            maxLength={MAX_EMAIL}
+            required
+            errors={fields.email}
+          />
+          <SelectField
+            label="Role"
+            name="role"
+            value={role}
+            onChange={(event) => setRole(event.target.value as (typeof ROLES)[number])}
+            errors={fields.role}
+          >
+            {ROLES.map((value) => (
+              <option key={value} value={value}>
+                {ROLE_LABELS[value]}
+              </option>
+            ))}
+          </SelectField>
+        </div>
+        <p className="text-xs text-slate-500" aria-live="polite">
+          {ROLE_LABELS[role]}: {ROLE_DESCRIPTIONS[role]}
+        </p>
+        <div className="flex justify-end">
+          <Button type="submit" busy={busy}>
+            Send invitation
+          </Button>
+        </div>
+      </form>
+
+      {invitations && invitations.length > 0 && (
+        <div>
+          <h3 className="text-sm font-semibold text-slate-900">Waiting for an answer</h3>
+          <ul className="mt-2 divide-y divide-slate-100" data-testid="pending-invitations">
+            {invitations.map((invitation) => (
+              <li key={invitation.id} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
+                <span className="min-w-0 truncate text-slate-800">{invitation.email}</span>
+                <span className="flex items-center gap-2 text-xs text-slate-500">
+                  <RoleBadge role={invitation.role} />
+                  expires <RelativeTime iso={invitation.expiresAt} />
+                </span>
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,124 @@
+// Queries about figures: list per manuscript, look-ups, create, update and delete (refused once a snapshot exists).
+// Labels are unique per manuscript: a duplicate becomes a 409 with a message naming the label.
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { db, type Db } from '@/db';
+import { figures, snapshots, type Figure } from '@/db/schema';
+import { conflict } from '@/lib/http/errors';
+import type { CreateFigure, UpdateFigure } from '@/lib/validations/figure';
+import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
+
+/** The figures of a manuscript, by label. */
+export async function listFiguresByManuscript({ manuscriptId, database = db }: { manuscriptId: string; database?: Db }): Promise<Figure[]> {
+  return database.select().from(figures).where(eq(figures.manuscriptId, manuscriptId)).orderBy(asc(figures.label));
+}
+
+/** A figure by id, or null. */
+export async function getFigureById({ id, database = db }: { id: string; database?: Db }): Promise<Figure | null> {
+  const [row] = await database.select().from(figures).where(eq(figures.id, id)).limit(1);
+  return row ?? null;
+}
+
+/** A figure by its label within a manuscript, or null (MDX blocks refer to figures by label). */
+export async function getFigureByLabel({
+  manuscriptId,
+  label,
+  database = db,
+}: {
+  manuscriptId: string;
+  label: string;
+  database?: Db;
+}): Promise<Figure | null> {
+  const [row] = await database
+    .select()
+    .from(figures)
+    .where(and(eq(figures.manuscriptId, manuscriptId), eq(figures.label, label)))
+    .limit(1);
+  return row ?? null;
+}
+
+function duplicateLabel(error: unknown, label: string | undefined): never {
+  if (pgErrorCode(error) === UNIQUE_VIOLATION) {
+    throw conflict(`A figure labelled "${label}" already exists in this manuscript`);
+  }
+  throw error;
+}
+
+/** Create a figure from validated input (kind and params agree: the schema checked it). 409 on a duplicate label. */
+export async function createFigure({
+  manuscriptId,
+  input,
+  userId,
+  database = db,
+}: {
+  manuscriptId: string;
+  input: CreateFigure;
+  userId: string | null;
+  database?: Db;
+}): Promise<Figure> {
+  try {
+    const [row] = await database
+      .insert(figures)
+      .values({
+        manuscriptId,
+        label: input.label,
+        kind: input.kind,
+        title: input.title,
+        caption: input.caption,
+        params: input.params,
+        viewSpec: input.viewSpec ?? null,
+        createdById: userId,
+      })
+      .returning();
+    return row;
+  } catch (error) {
+    duplicateLabel(error, input.label);
+  }
+}
+
+/** Apply a validated patch; new params also set the kind to their task. 409 on a duplicate label. */
+export async function updateFigure({ id, patch, database = db }: { id: string; patch: UpdateFigure; database?: Db }): Promise<Figure | null> {
+  const values: Partial<typeof figures.$inferInsert> = { updatedAt: new Date() };
+  if (patch.label !== undefined) values.label = patch.label;
+  if (patch.title !== undefined) values.title = patch.title;
+  if (patch.caption !== undefined) values.caption = patch.caption;
+  if (patch.viewSpec !== undefined) values.viewSpec = patch.viewSpec;
+  if (patch.params !== undefined) {
+    values.params = patch.params;
+    values.kind = patch.params.task;
+  }
+  try {
+    const [row] = await database.update(figures).set(values).where(eq(figures.id, id)).returning();
+    return row ?? null;
+  } catch (error) {
+    duplicateLabel(error, patch.label);
+  }
+}
+
+/** How many snapshots a figure has (a figure with any cannot be deleted). */
+export async function countSnapshotsOfFigure({ figureId, database = db }: { figureId: string; database?: Db }): Promise<number> {
+  const [row] = await database
+    .select({ n: sql<number>`count(*)::int` })
+    .from(snapshots)
+    .where(eq(snapshots.figureId, figureId));
+  return row?.n ?? 0;
+}
+
+/**
+ * Delete a figure and its runs (cascade). Refused with 409 when the figure has a frozen snapshot: snapshots are
+ * cited, so their figure stays (the foreign key also refuses it).
+ */
+export async function deleteFigureById({ id, database = db }: { id: string; database?: Db }): Promise<boolean> {
+  return database.transaction(async (tx) => {
+    const [locked] = await tx.select({ id: figures.id }).from(figures).where(eq(figures.id, id)).for('update');
+    if (!locked) return false;
+    const [count] = await tx
+      .select({ n: sql<number>`count(*)::int` })
+      .from(snapshots)
+      .where(eq(snapshots.figureId, id));
+    if ((count?.n ?? 0) > 0) {
+      throw conflict('This figure has frozen snapshots, which are cited and cannot be removed; the figure stays');
+    }
+    await tx.delete(figures).where(eq(figures.id, id));
+    return true;
+  });
+}

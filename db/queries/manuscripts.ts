@@ -1,0 +1,211 @@
+// Queries about manuscripts: look-ups, lists with the caller's role, creation (with a unique slug and the
+// creator as owner), detail updates, archiving, and deletion (refused while frozen snapshots exist).
+import { and, count, desc, eq, inArray, like, or, sql } from 'drizzle-orm';
+import { db } from '@/db';
+import { manuscripts, memberships, snapshots, type Manuscript, type MemberRole } from '@/db/schema';
+import { conflict, notFound } from '@/lib/http/errors';
+import type { Executor } from './executor';
+import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
+
+/** A manuscript as listed on the dashboard, with the caller's role (null: visible to a site admin only). */
+export interface ManuscriptListItem {
+  id: string;
+  slug: string;
+  title: string;
+  status: Manuscript['status'];
+  archivedAt: Date | null;
+  updatedAt: Date;
+  role: MemberRole | null;
+  memberCount: number;
+}
+
+const MAX_SLUG_BASE = 60;
+
+/**
+ * A URL-safe slug from a title: lower-case ASCII letters, digits and single hyphens, at most 60 characters.
+ *
+ * @example
+ * slugify('Flux  tubes, part II'); // 'flux-tubes-part-ii'
+ * slugify('Émile’s ring'); // 'emile-s-ring' (accents stripped, other symbols become hyphens)
+ */
+export function slugify(title: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, MAX_SLUG_BASE)
+    .replace(/-+$/g, '');
+  return slug || 'manuscript';
+}
+
+/** The first free slug among `base`, `base-2`, `base-3`, … */
+async function nextFreeSlug(tx: Executor, base: string): Promise<string> {
+  const rows = await tx
+    .select({ slug: manuscripts.slug })
+    .from(manuscripts)
+    .where(or(eq(manuscripts.slug, base), like(manuscripts.slug, `${base}-%`)));
+  const taken = new Set(rows.map((row) => row.slug));
+  if (!taken.has(base)) return base;
+  for (let n = 2; ; n++) {
+    const candidate = `${base}-${n}`;
+    if (!taken.has(candidate)) return candidate;
+  }
+}
+
+/** A manuscript by id, or null. */
+export async function getManuscriptById({ id }: { id: string }): Promise<Manuscript | null> {
+  const [row] = await db.select().from(manuscripts).where(eq(manuscripts.id, id)).limit(1);
+  return row ?? null;
+}
+
+/** A manuscript by slug, or null. */
+export async function getManuscriptBySlug({ slug }: { slug: string }): Promise<Manuscript | null> {
+  const [row] = await db.select().from(manuscripts).where(eq(manuscripts.slug, slug)).limit(1);
+  return row ?? null;
+}
+
+const memberCountSql = sql<number>`(select count(*)::int from ${memberships} m2 where m2.manuscript_id = ${manuscripts.id})`;
+
+/** The manuscripts `userId` is a member of, most recently updated first. */
+export async function listManuscriptsForUser({ userId }: { userId: string }): Promise<ManuscriptListItem[]> {
+  return db
+    .select({
+      id: manuscripts.id,
+      slug: manuscripts.slug,
+      title: manuscripts.title,
+      status: manuscripts.status,
+      archivedAt: manuscripts.archivedAt,
+      updatedAt: manuscripts.updatedAt,
+      role: memberships.role,
+      memberCount: memberCountSql,
+    })
+    .from(memberships)
+    .innerJoin(manuscripts, eq(manuscripts.id, memberships.manuscriptId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(desc(manuscripts.updatedAt));
+}
+
+/** Every manuscript (site admins), with `userId`'s role where they are a member. */
+export async function listAllManuscripts({ userId }: { userId: string }): Promise<ManuscriptListItem[]> {
+  return db
+    .select({
+      id: manuscripts.id,
+      slug: manuscripts.slug,
+      title: manuscripts.title,
+      status: manuscripts.status,
+      archivedAt: manuscripts.archivedAt,
+      updatedAt: manuscripts.updatedAt,
+      role: memberships.role,
+      memberCount: memberCountSql,
+    })
+    .from(manuscripts)
+    .leftJoin(memberships, and(eq(memberships.manuscriptId, manuscripts.id), eq(memberships.userId, userId)))
+    .orderBy(desc(manuscripts.updatedAt));
+}
+
+/**
+ * Create a manuscript with `ownerId` as its first owner. The slug comes from the title and is made unique
+ * (`title`, `title-2`, …); a concurrent insert of the same slug is retried.
+ */
+export async function createManuscript({
+  ownerId,
+  title,
+  abstract = '',
+}: {
+  ownerId: string;
+  title: string;
+  abstract?: string;
+}): Promise<Manuscript> {
+  const base = slugify(title);
+  for (let attempt = 0; attempt < 5; attempt++) {
+    try {
+      return await db.transaction(async (tx) => {
+        const slug = await nextFreeSlug(tx, base);
+        const [manuscript] = await tx
+          .insert(manuscripts)
+          .values({ title, abstract, slug, createdById: ownerId })
+          .returning();
+        await tx.insert(memberships).values({ manuscriptId: manuscript.id, userId: ownerId, role: 'owner' });
+        return manuscript;
+      });
+    } catch (error) {
+      if (pgErrorCode(error) !== UNIQUE_VIOLATION) throw error;
+    }
+  }
+  throw conflict('Could not find a free address for this title; try again');
+}
+
+/** Change title, abstract and/or status; bumps updatedAt. */
+export async function updateManuscript({
+  id,
+  title,
+  abstract,
+  status,
+}: {
+  id: string;
+  title?: string;
+  abstract?: string;
+  status?: Manuscript['status'];
+}): Promise<Manuscript> {
+  const [row] = await db
+    .update(manuscripts)
+    .set({
+      ...(title !== undefined && { title }),
+      ...(abstract !== undefined && { abstract }),
+      ...(status !== undefined && { status }),
+      updatedAt: new Date(),
+    })
+    .where(eq(manuscripts.id, id))
+    .returning();
+  if (!row) throw notFound('Manuscript not found');
+  return row;
+}
+
+/** Archive (sets archivedAt to now) or restore (clears it). Archiving an archived manuscript keeps its date. */
+export async function setManuscriptArchived({ id, archived }: { id: string; archived: boolean }): Promise<Manuscript> {
+  const [row] = await db
+    .update(manuscripts)
+    .set({
+      archivedAt: archived ? sql`coalesce(${manuscripts.archivedAt}, now())` : null,
+      updatedAt: new Date(),
+    })
+    .where(eq(manuscripts.id, id))
+    .returning();
+  if (!row) throw notFound('Manuscript not found');
+  return row;
+}
+
+/** How many frozen snapshots the manuscript has (a manuscript with any cannot be deleted). */
+export async function countSnapshotsForManuscript({ id }: { id: string }): Promise<number> {
+  const [row] = await db.select({ n: count() }).from(snapshots).where(eq(snapshots.manuscriptId, id));
+  return row?.n ?? 0;
+}
+
+/** Counts of snapshots for several manuscripts at once (id -> count; absent = 0). */
+export async function countSnapshotsForManuscripts({ ids }: { ids: string[] }): Promise<Map<string, number>> {
+  if (ids.length === 0) return new Map();
+  const rows = await db
+    .select({ id: snapshots.manuscriptId, n: count() })
+    .from(snapshots)
+    .where(inArray(snapshots.manuscriptId, ids))
+    .groupBy(snapshots.manuscriptId);
+  return new Map(rows.map((row) => [row.id, row.n]));
+}
+
+/**
+ * Delete a manuscript and everything that cascades from it. Throws 409 while it has a frozen snapshot:
+ * snapshots are cited by others and must stay resolvable.
+ */
+export async function deleteManuscriptById({ id }: { id: string }): Promise<void> {
+  await db.transaction(async (tx) => {
+    const [locked] = await tx.select({ id: manuscripts.id }).from(manuscripts).where(eq(manuscripts.id, id)).for('update');
+    if (!locked) throw notFound('Manuscript not found');
+    const [row] = await tx.select({ n: count() }).from(snapshots).where(eq(snapshots.manuscriptId, id));
+    if ((row?.n ?? 0) > 0) {
+      throw conflict('This manuscript has frozen snapshots, which others may cite; archive it instead');
+    }
+    await tx.delete(manuscripts).where(eq(manuscripts.id, id));
+  });
+}

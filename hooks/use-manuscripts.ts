@@ -1,0 +1,18 @@
+// SWR hook: the signed-in user's manuscripts (or, for site admins, every manuscript) from GET /api/manuscripts.
+'use client';
+
+import useSWR from 'swr';
+import type { ManuscriptListItemJson } from '@/lib/api-types';
+import { fetcher, type ApiError } from '@/lib/fetcher';
+
+export function manuscriptsKey(scope: 'mine' | 'all' = 'mine'): string {
+  return scope === 'all' ? '/api/manuscripts?scope=all' : '/api/manuscripts';
+}
+
+export function useManuscripts(scope: 'mine' | 'all' = 'mine') {
+  const { data, error, isLoading, mutate } = useSWR<{ manuscripts: ManuscriptListItemJson[] }, ApiError>(
+    manuscriptsKey(scope),
+    fetcher,
+  );
+  return { manuscripts: data?.manuscripts, error, isLoading, mutate };
+}

@@ -1,0 +1,50 @@
+// SWR hook for one solver run: polls GET /api/runs/[id] while the run is queued or running (the progress bar),
+// stops when it finishes, and exposes start / cancel / freeze mutations that go through the shared typed client.
+'use client';
+
+import useSWR from 'swr';
+import { fetcher, sendJson, type ApiError } from '@/lib/fetcher';
+import type { RunView } from '@/app/_components/notes/load-note-figures';
+
+/** What GET /api/runs/[id] answers. */
+export interface RunResponse {
+  run: RunView;
+  result: { id: string; resultHash: string; solverVersion: string; data: unknown; diagnostics: unknown } | null;
+}
+
+/** How often a live run is polled (ms). */
+export const RUN_POLL_MS = 600;
+
+/** True while a run may still change (queued or running). */
+export function isActive(status: RunView['status'] | undefined): boolean {
+  return status === 'queued' || status === 'running';
+}
+
+/**
+ * Follow one run. Polls while it is active; `null` follows nothing.
+ *
+ * @example
+ * const { run, result } = useRun(runId);
+ */
+export function useRun(runId: string | null) {
+  const { data, error, mutate, isLoading } = useSWR<RunResponse, ApiError>(runId ? `/api/runs/${runId}` : null, fetcher, {
+    refreshInterval: (latest) => (latest && !isActive(latest.run.status) ? 0 : RUN_POLL_MS),
+    revalidateOnFocus: false,
+  });
+  return { run: data?.run ?? null, result: data?.result ?? null, error, isLoading, mutate };
+}
+
+/** Start a run of a figure with its saved parameters (POST /api/figures/[id]/runs). */
+export function startRun(figureId: string): Promise<{ run: RunView; fromCache: boolean }> {
+  return sendJson(`/api/figures/${figureId}/runs`, { method: 'POST' });
+}
+
+/** Cancel a queued or running run. */
+export function cancelRun(runId: string): Promise<{ run: RunView }> {
+  return sendJson(`/api/runs/${runId}/cancel`, { method: 'POST' });
+}
+
+/** Freeze a succeeded run as the figure's next snapshot version. */
+export function freezeRun(runId: string): Promise<{ snapshot: { id: string; version: number } }> {
+  return sendJson(`/api/runs/${runId}/freeze`, { method: 'POST' });
+}

@@ -1,0 +1,142 @@
+// Dense kernels on column-major blocks of vectors (real or complex), chunked over rows so every pass stays in cache.
+// Used by LOBPCG: Gram matrices U^H V, linear combinations S C, and small helpers. Fixed summation order (deterministic).
+/** Rows per chunk: large enough to amortise loop overhead, small enough that ~30 column slices fit in L2 (bench). */
+const CHUNK_ROWS = 512;
+
+/** A block view: column c of the block is at [(off + c) * n, (off + c + 1) * n) of re (and im when complex). */
+export interface Cols {
+  re: Float64Array;
+  im: Float64Array | null;
+  off: number;
+}
+
+/**
+ * G = U^H V (cu x cv, row-major in gr/gi: G[p * cv + q] = sum_r conj(U_p[r]) V_q[r]).
+ * gi may be null only when U and V are both real.
+ * @example
+ * gram(n, { re: x, im: null, off: 0 }, 2, { re: x, im: null, off: 0 }, 2, g, null); // 2 x 2 overlap matrix
+ */
+export function gram(n: number, U: Cols, cu: number, V: Cols, cv: number, gr: Float64Array, gi: Float64Array | null): void {
+  gr.fill(0, 0, cu * cv);
+  if (gi) gi.fill(0, 0, cu * cv);
+  const complex = U.im !== null || V.im !== null;
+  for (let r0 = 0; r0 < n; r0 += CHUNK_ROWS) {
+    const r1 = Math.min(n, r0 + CHUNK_ROWS);
+    for (let p = 0; p < cu; p++) {
+      const up = (U.off + p) * n;
+      for (let q = 0; q < cv; q++) {
+        const vq = (V.off + q) * n;
+        let sr = 0;
+        if (!complex) {
+          const ur = U.re;
+          const vr = V.re;
+          for (let r = r0; r < r1; r++) sr += ur[up + r] * vr[vq + r];
+          gr[p * cv + q] += sr;
+        } else {
+          let si = 0;
+          const ur = U.re;
+          const vr = V.re;
+          const ui = U.im;
+          const vi = V.im;
+          for (let r = r0; r < r1; r++) {
+            const a = ur[up + r];
+            const b = ui === null ? 0 : ui[up + r];
+            const c = vr[vq + r];
+            const d = vi === null ? 0 : vi[vq + r];
+            sr += a * c + b * d;
+            si += a * d - b * c;
+          }
+          gr[p * cv + q] += sr;
+          (gi as Float64Array)[p * cv + q] += si;
+        }
+      }
+    }
+  }
+}
+
+/**
+ * out[:, j] (=|-=) sum_l S[:, l] C[l, cOff + j] for j < cout, l < cs; C row-major with leading dimension ldc.
+ * `out` must not overlap the columns of S. out.im must be non-null when S or C is complex.
+ * @param subtract - false: out = S C; true: out -= S C
+ */
+export function combine(
+  n: number,
+  S: Cols,
+  cs: number,
+  cr: Float64Array,
+  ci: Float64Array | null,
+  ldc: number,
+  cOff: number,
+  out: Cols,
+  cout: number,
+  subtract: boolean,
+): void {
+  const complex = S.im !== null || ci !== null;
+  const sign = subtract ? -1 : 1;
+  for (let r0 = 0; r0 < n; r0 += CHUNK_ROWS) {
+    const r1 = Math.min(n, r0 + CHUNK_ROWS);
+    for (let j = 0; j < cout; j++) {
+      const o = (out.off + j) * n;
+      const orr = out.re;
+      const oi = out.im;
+      if (!subtract) {
+        orr.fill(0, o + r0, o + r1);
+        if (oi) oi.fill(0, o + r0, o + r1);
+      }
+      for (let l = 0; l < cs; l++) {
+        const a = sign * cr[l * ldc + cOff + j];
+        const b = ci === null ? 0 : sign * ci[l * ldc + cOff + j];
+        if (a === 0 && b === 0) continue;
+        const s = (S.off + l) * n;
+        const sr = S.re;
+        if (!complex) {
+          for (let r = r0; r < r1; r++) orr[o + r] += a * sr[s + r];
+        } else {
+          const si = S.im;
+          const outIm = oi as Float64Array;
+          if (si === null) {
+            for (let r = r0; r < r1; r++) {
+              const x = sr[s + r];
+              orr[o + r] += a * x;
+              outIm[o + r] += b * x;
+            }
+          } else {
+            for (let r = r0; r < r1; r++) {
+              const x = sr[s + r];
+              const y = si[s + r];
+              orr[o + r] += a * x - b * y;
+              outIm[o + r] += a * y + b * x;
+            }
+          }
+        }
+      }
+    }
+  }
+}
+
+/** Copies column `from` of A to column `to` of B (both with n rows). */
+export function copyColumn(n: number, A: Cols, from: number, B: Cols, to: number): void {
+  const src = (A.off + from) * n;
+  const dst = (B.off + to) * n;
+  B.re.set(A.re.subarray(src, src + n), dst);
+  if (B.im) {
+    if (A.im) B.im.set(A.im.subarray(src, src + n), dst);
+    else B.im.fill(0, dst, dst + n);
+  }
+}
+
+/** Euclidean norm of column c. */
+export function columnNorm(n: number, A: Cols, c: number): number {
+  const o = (A.off + c) * n;
+  let s = 0;
+  for (let r = o; r < o + n; r++) s += A.re[r] * A.re[r];
+  if (A.im) for (let r = o; r < o + n; r++) s += A.im[r] * A.im[r];
+  return Math.sqrt(s);
+}
+
+/** Scales column c by a real factor. */
+export function scaleColumn(n: number, A: Cols, c: number, factor: number): void {
+  const o = (A.off + c) * n;
+  for (let r = o; r < o + n; r++) A.re[r] *= factor;
+  if (A.im) for (let r = o; r < o + n; r++) A.im[r] *= factor;
+}

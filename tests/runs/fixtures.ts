@@ -1,0 +1,84 @@
+// Test data for the runs tests: a unique person, manuscript and figure per test (so files never collide), small
+// solver specs with known cost, and a wait helper. Real PostgreSQL on DATABASE_URL; nothing is mocked.
+import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
+import { db } from '@/db';
+import { createFigure } from '@/db/queries/figures';
+import { figures, manuscripts, memberships, users, type Figure, type MemberRole } from '@/db/schema';
+import { createFigureSchema, type CreateFigureInput } from '@/lib/validations/figure';
+
+/** A fast spectrum: unit disk, half tube at the centre, coarse grid (a few hundred unknowns). */
+export const SMALL_SPECTRUM = {
+  task: 'spectrum',
+  well: { disk: { center: [0, 0], radius: 1 } },
+  grid: { h: 0.1 },
+  tubes: [{ at: [0, 0], alpha: 0.5 }],
+  levels: 4,
+} as const;
+
+/** A spectral flow that takes a few seconds (many flux steps on a finer grid): long enough to cancel or kill. */
+export const SLOW_FLUX_SWEEP = {
+  task: 'flux-sweep',
+  well: { disk: { center: [0, 0], radius: 1 } },
+  grid: { h: 1 / 30 },
+  tubes: [{ at: [0.2, 0.1], alpha: 0 }],
+  sweep: { tube: 0, from: 0, to: 1, steps: 400 },
+  levels: 6,
+} as const;
+
+export interface TestWorld {
+  user: { id: string; email: string };
+  manuscript: { id: string; slug: string; title: string };
+}
+
+/** A user who is `role` of a fresh manuscript. */
+export async function createWorld(role: MemberRole = 'author'): Promise<TestWorld> {
+  const tag = randomUUID().slice(0, 8);
+  const [user] = await db
+    .insert(users)
+    .values({ email: `runs-${tag}@lab.example.org`, name: `Runs Tester ${tag}` })
+    .returning({ id: users.id, email: users.email });
+  const [manuscript] = await db
+    .insert(manuscripts)
+    .values({ title: `Flux tubes test ${tag}`, slug: `runs-test-${tag}`, createdById: user.id })
+    .returning({ id: manuscripts.id, slug: manuscripts.slug, title: manuscripts.title });
+  await db.insert(memberships).values({ manuscriptId: manuscript.id, userId: user.id, role });
+  return { user, manuscript };
+}
+
+/** A figure of the world's manuscript with `params` (validated like the API does). */
+export async function createTestFigure(
+  world: TestWorld,
+  params: Record<string, unknown>,
+  extra: Partial<CreateFigureInput> = {},
+): Promise<Figure> {
+  const input = createFigureSchema.parse({
+    label: `fig-${randomUUID().slice(0, 8)}`,
+    kind: params.task,
+    caption: 'Test figure',
+    params,
+    ...extra,
+  });
+  return createFigure({ manuscriptId: world.manuscript.id, input, userId: world.user.id });
+}
+
+/** Set a figure's params directly (as a PATCH would). */
+export async function setFigureParams(figureId: string, params: Record<string, unknown>): Promise<Figure> {
+  const [row] = await db.update(figures).set({ params }).where(eq(figures.id, figureId)).returning();
+  return row;
+}
+
+/** Poll `check` every `intervalMs` until it returns a value other than undefined, or fail after `timeoutMs`. */
+export async function waitFor<T>(
+  what: string,
+  check: () => Promise<T | undefined>,
+  { timeoutMs = 60_000, intervalMs = 200 }: { timeoutMs?: number; intervalMs?: number } = {},
+): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await check();
+    if (value !== undefined) return value;
+    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((resolve) => setTimeout(resolve, intervalMs));
+  }
+}

@@ -1,0 +1,142 @@
+// Snapshots: numbered v1, v2, … per figure even under concurrent freezes; only succeeded runs freeze; the database
+// refuses UPDATE and DELETE (trigger); a bundle recomputed by the solver gives the same hash, a tampered one does not.
+import { eq, sql } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { db, sqlClient } from '@/db';
+import { deleteFigureById } from '@/db/queries/figures';
+import { getResultById } from '@/db/queries/results';
+import { getSnapshotContext, listSnapshotsByFigure } from '@/db/queries/snapshots';
+import { snapshots, type Figure, type Snapshot } from '@/db/schema';
+import { executeRun } from '@/lib/jobs/run-job';
+import { startRun } from '@/lib/runs/start-run';
+import { snapshotBundle, snapshotBundleCsv, type SnapshotBundle } from '@/lib/snapshots/bundle';
+import { freezeRun } from '@/lib/snapshots/freeze';
+import { BundleError, parseBundle, verifyBundle } from '@/lib/snapshots/verify-bundle';
+import { createTestFigure, createWorld, SMALL_SPECTRUM, setFigureParams, type TestWorld } from './fixtures';
+
+let world: TestWorld;
+let figure: Figure;
+
+/** Start and compute a run of the figure's current parameters (in-process, no queue); returns the run id. */
+async function computedRun(fig: Figure): Promise<string> {
+  const { run, fromCache } = await startRun({ figure: fig, user: world.user, enqueue: null });
+  if (!fromCache) {
+    const outcome = await executeRun(run.id);
+    if (outcome.status !== 'succeeded') throw new Error(`run ended ${outcome.status}`);
+  }
+  return run.id;
+}
+
+async function bundleOf(snapshot: Snapshot): Promise<SnapshotBundle> {
+  const context = await getSnapshotContext({ id: snapshot.id });
+  const result = await getResultById({ id: snapshot.resultId });
+  return snapshotBundle(snapshot, result!, context!);
+}
+
+beforeAll(async () => {
+  world = await createWorld('author');
+  figure = await createTestFigure(world, { ...SMALL_SPECTRUM, levels: 3 });
+});
+
+afterAll(async () => {
+  await sqlClient.end({ timeout: 5 });
+});
+
+describe('freezing', () => {
+  it('numbers snapshots v1, v2, v3 … without gaps or duplicates under concurrent freezes', async () => {
+    const runIds: string[] = [];
+    for (const levels of [3, 4, 5, 6, 7]) {
+      const fig = await setFigureParams(figure.id, { ...SMALL_SPECTRUM, levels });
+      runIds.push(await computedRun(fig));
+    }
+    const frozen = await Promise.all(runIds.map((runId) => freezeRun({ runId, user: world.user })));
+    expect(frozen.map((s) => s.version).sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5]);
+    const listed = await listSnapshotsByFigure({ figureId: figure.id });
+    expect(listed.map((s) => s.version)).toEqual([1, 2, 3, 4, 5]);
+    for (const snapshot of frozen) {
+      expect(snapshot.resultHash).toMatch(/^[0-9a-f]{64}$/);
+      expect(snapshot.frozenById).toBe(world.user.id);
+      expect(snapshot.label).toBe(figure.label);
+      expect(snapshot.kind).toBe('spectrum');
+      expect(snapshot.solverVersion).toBeTruthy();
+    }
+  });
+
+  it('refuses a run that has not succeeded, and a run frozen already', async () => {
+    const fig = await setFigureParams(figure.id, { ...SMALL_SPECTRUM, levels: 8 });
+    const { run } = await startRun({ figure: fig, user: world.user, enqueue: null });
+    await expect(freezeRun({ runId: run.id, user: world.user })).rejects.toMatchObject({ status: 409 });
+    await executeRun(run.id);
+    const snapshot = await freezeRun({ runId: run.id, user: world.user });
+    expect(snapshot.version).toBe(6);
+    await expect(freezeRun({ runId: run.id, user: world.user })).rejects.toMatchObject({
+      status: 409,
+      message: expect.stringContaining('v6'),
+    });
+    await expect(freezeRun({ runId: '00000000-0000-4000-8000-000000000000', user: world.user })).rejects.toMatchObject({
+      status: 404,
+    });
+  });
+
+  it('keeps a figure that has snapshots (delete answers 409)', async () => {
+    await expect(deleteFigureById({ id: figure.id })).rejects.toMatchObject({ status: 409 });
+  });
+});
+
+describe('immutability in the database', () => {
+  it('refuses UPDATE and DELETE of snapshots (trigger), through Drizzle and raw SQL', async () => {
+    const [snapshot] = await listSnapshotsByFigure({ figureId: figure.id });
+    await expect(db.update(snapshots).set({ caption: 'edited' }).where(eq(snapshots.id, snapshot.id))).rejects.toThrow(
+      /immutable/,
+    );
+    await expect(db.delete(snapshots).where(eq(snapshots.id, snapshot.id))).rejects.toThrow(/immutable/);
+    await expect(db.execute(sql`UPDATE snapshots SET result_hash = 'x' WHERE id = ${snapshot.id}`)).rejects.toThrow(
+      /immutable/,
+    );
+    const [again] = await db.select().from(snapshots).where(eq(snapshots.id, snapshot.id));
+    expect(again).toEqual(snapshot);
+  });
+});
+
+describe('bundles', () => {
+  it('recomputes a snapshot with the same hash', async () => {
+    const [snapshot] = await listSnapshotsByFigure({ figureId: figure.id });
+    const bundle = parseBundle(JSON.parse(JSON.stringify(await bundleOf(snapshot))));
+    expect(bundle).toMatchObject({
+      format: 'fluxfolio-snapshot-bundle',
+      formatVersion: 1,
+      version: snapshot.version,
+      resultHash: snapshot.resultHash,
+      figure: { label: figure.label, kind: 'spectrum' },
+      manuscript: { slug: world.manuscript.slug },
+    });
+    const check = await verifyBundle(bundle);
+    expect(check.identical).toBe(true);
+    expect(check.recomputedHash).toBe(snapshot.resultHash);
+    expect(check.summary).toMatch(/^identical/);
+    expect(snapshotBundleCsv(bundle).split('\r\n')[0]).toBe('table,row,column,value');
+  });
+
+  it('reports which fields differ and by how much when the data was changed', async () => {
+    const [snapshot] = await listSnapshotsByFigure({ figureId: figure.id });
+    const bundle = JSON.parse(JSON.stringify(await bundleOf(snapshot))) as SnapshotBundle;
+    const levels = bundle.data.levels as number[];
+    levels[1] *= 1.001;
+    const check = await verifyBundle(parseBundle(bundle));
+    expect(check.identical).toBe(false);
+    expect(check.diff?.fields.map((f) => f.field)).toContain('levels[]');
+    expect(check.diff?.largest?.path).toBe('levels[1]');
+    expect(check.diff?.largest?.relativeDifference).toBeCloseTo(0.001 / 1.001, 6);
+    expect(check.summary).toMatch(/DIFFERENT/);
+    expect(check.summary).toMatch(/levels\[1\]/);
+  });
+
+  it('rejects what is not a bundle, naming the fields', () => {
+    expect(() => parseBundle({ format: 'something-else' })).toThrow(BundleError);
+    try {
+      parseBundle({ format: 'fluxfolio-snapshot-bundle', formatVersion: 1 });
+    } catch (error) {
+      expect((error as BundleError).issues.map((i) => i.path)).toEqual(expect.arrayContaining(['params', 'resultHash', 'data']));
+    }
+  });
+});
