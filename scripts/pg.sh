@@ -92,6 +92,9 @@ cmd_start() {
   mkdir -p "$PG_DATA"
   if is_root; then chown "$PG_SUPERUSER:" "$PG_DATA"; fi
   chmod 700 "$PG_DATA"
+  if is_root && ! runuser -u "$PG_SUPERUSER" -- test -x "$PG_DATA"; then
+    die "the '$PG_SUPERUSER' user cannot reach $PG_DATA (a parent folder is not traversable); set PGDATA to a path under /var/tmp"
+  fi
   if [ ! -f "$PG_DATA/PG_VERSION" ]; then
     log "initialising a new cluster in $PG_DATA"
     as_pg "$PG_BIN/initdb" -D "$PG_DATA" -U "$PG_SUPERUSER" --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null

@@ -9,15 +9,13 @@ import { db } from '@/db';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { getUserByEmail } from '@/db/queries/users';
 import { verifyPassword } from '@/lib/auth/password';
+import { getEnv } from '@/lib/env';
 import { noAccountMail, signInLinkMail } from '@/lib/auth/sign-in-mail';
 import { sendMail } from '@/lib/mail/send-mail';
 import { passwordSignInSchema } from '@/lib/validations/auth';
 
 /** One-time sign-in links work for 30 minutes (common practice: short, but long enough to switch devices). */
 export const MAGIC_LINK_MAX_AGE_SECONDS = 30 * 60;
-
-const SMTP_URL = process.env.SMTP_URL || 'smtp://127.0.0.1:2525?ignoreTLS=true';
-const MAIL_FROM = process.env.MAIL_FROM || 'Fluxfolio <no-reply@fluxfolio.test>';
 
 export const authOptions: NextAuthOptions = {
   // The @auth/core adapter types differ from next-auth v4's, the runtime contract is the same (STACK.md §4).
@@ -29,7 +27,7 @@ export const authOptions: NextAuthOptions = {
   }) as unknown as Adapter,
   // Credentials sign-in only works with JWT sessions in next-auth v4.
   session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
-  secret: process.env.NEXTAUTH_SECRET,
+  secret: getEnv().NEXTAUTH_SECRET,
   pages: { signIn: '/sign-in', verifyRequest: '/sign-in/check-mail', error: '/sign-in' },
   providers: [
     CredentialsProvider({
@@ -47,8 +45,8 @@ export const authOptions: NextAuthOptions = {
     }),
     EmailProvider({
       // A URL string, not an object: the object form is merged with empty credentials (STACK.md §5.4).
-      server: SMTP_URL,
-      from: MAIL_FROM,
+      server: getEnv().SMTP_URL,
+      from: getEnv().MAIL_FROM,
       maxAge: MAGIC_LINK_MAX_AGE_SECONDS,
       async sendVerificationRequest({ identifier, url }) {
         const { host } = new URL(url);

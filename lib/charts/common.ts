@@ -20,6 +20,9 @@ export const GAP_SCHEME = 'cividis';
 /** Diverging blue/orange for signed fields (blue negative, orange positive; colour-blind safe, common practice). */
 export const DIVERGING_SCHEME = 'blueorange';
 
+/** Sign maps: orange for psi > 0, sky blue for psi < 0 (Okabe–Ito pair; black nodal lines stay visible on both). */
+export const SIGN_COLOURS = { positive: '#E69F00', negative: '#56B4E9' } as const;
+
 /** Marker colours over heat maps: white-rimmed black for tubes, vermillion for degeneracy points, black for loops. */
 export const TUBE_COLOUR = '#000000';
 export const POINT_COLOUR = '#D55E00';
@@ -76,7 +79,7 @@ export function baseSpec(options: ChartOptions, body: SpecPart, size?: { width: 
     config: {
       font: CHART_FONT,
       axis: { labelFontSize: 10, titleFontSize: 11, titleFontWeight: 'normal', grid: false, tickColor: '#333', domainColor: '#333' },
-      legend: { labelFontSize: 10, titleFontSize: 10, titleFontWeight: 'normal' },
+      legend: { labelFontSize: 10, titleFontSize: 10, titleFontWeight: 'normal', labelLimit: 240 },
       title: { fontSize: 12, fontWeight: 'normal' },
       view: { stroke: '#333' },
       range: { category: [...OKABE_ITO] },

@@ -29,6 +29,9 @@ export interface FieldCellOptions {
   scale?: number;
 }
 
+/** Fraction of a cell by which heat-map cells overlap (hides anti-aliasing seams; invisible otherwise). */
+const SEAM_OVERLAP = 0.02;
+
 function spacing(coords: ArrayLike<number>, fallback: number): number {
   return coords.length > 1 ? (coords[coords.length - 1] - coords[0]) / (coords.length - 1) : fallback;
 }
@@ -75,10 +78,11 @@ export function fieldCells(field: GridField, options: FieldCellOptions): { cells
         }
       }
       if (count === 0) continue;
-      const x0 = field.xs[bi] - dx / 2;
-      const x1 = field.xs[iEnd - 1] + dx / 2;
-      const y0 = field.ys[bj] - dy / 2;
-      const y1 = field.ys[jEnd - 1] + dy / 2;
+      // Cells overlap their neighbours by a hair so anti-aliasing leaves no light seams between them.
+      const x0 = field.xs[bi] - dx * (0.5 + SEAM_OVERLAP);
+      const x1 = field.xs[iEnd - 1] + dx * (0.5 + SEAM_OVERLAP);
+      const y0 = field.ys[bj] - dy * (0.5 + SEAM_OVERLAP);
+      const y1 = field.ys[jEnd - 1] + dy * (0.5 + SEAM_OVERLAP);
       cells.push({ x: tidy(x0 * s), x2: tidy(x1 * s), y: tidy(y0 * s), y2: tidy(y1 * s), v: tidy((sum / count) * scale) });
     }
   }
@@ -109,6 +113,32 @@ export function heatLayer(
         },
       },
       tooltip: [{ field: 'v', type: 'quantitative', title: colour.title, format: '.4g' }],
+    },
+  };
+}
+
+/** A rect-mark map of categories (e.g. the sign of a real state): `v` values mapped to colours with labels in the legend. */
+export function categoryLayer(
+  cells: FieldCell[],
+  categories: { value: number; label: string; colour: string }[],
+  title: string,
+): Record<string, unknown> {
+  const labelExpr = categories.map((c) => `datum.value == ${c.value} ? ${JSON.stringify(c.label)} : `).join('') + "''";
+  return {
+    data: { values: cells },
+    mark: { type: 'rect', strokeWidth: 0 },
+    encoding: {
+      x: { field: 'x', type: 'quantitative' },
+      x2: { field: 'x2' },
+      y: { field: 'y', type: 'quantitative' },
+      y2: { field: 'y2' },
+      color: {
+        field: 'v',
+        type: 'ordinal',
+        title,
+        scale: { domain: categories.map((c) => c.value), range: categories.map((c) => c.colour) },
+        legend: { labelExpr },
+      },
     },
   };
 }

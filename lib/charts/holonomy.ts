@@ -124,7 +124,7 @@ export function holonomySpec(result: unknown, options: ChartOptions = {}): Chart
   const lines = [
     sign !== null ? `W/|W| = ${sign > 0 ? '+1' : '−1'}` : `arg W = ${phaseInPi(phase)}`,
     `|W| = ${modulus.toPrecision(4)}`,
-    ...(typeof r.residual === 'number' ? [`|Im W|/|W| = ${r.residual.toExponential(1)}`] : []),
+    ...(typeof r.residual === 'number' ? [`|Im W|/|W| = ${r.residual === 0 ? '0' : r.residual.toExponential(1)}`] : []),
     ...(orientation ? [orientation === 'ccw' ? 'counter-clockwise loop' : 'clockwise loop'] : []),
   ];
   const axis = (title: string) => ({ type: 'quantitative', title, scale: { domain: [-1.25, 1.25], nice: false } });
@@ -139,7 +139,8 @@ export function holonomySpec(result: unknown, options: ChartOptions = {}): Chart
         encoding: { x: { field: 're', ...axis('Re W') }, y: { field: 'im', ...axis('Im W') }, x2: { field: 're2' }, y2: { field: 'im2' } },
       },
       {
-        data: { values: [{ re: tidy(unit.re), im: tidy(unit.im), what: 'W/|W|' }, { re: tidy(re), im: tidy(im), what: 'W' }] },
+        // W first so that W/|W| is drawn on top of it when |W| = 1.
+        data: { values: [{ re: tidy(re), im: tidy(im), what: 'W' }, { re: tidy(unit.re), im: tidy(unit.im), what: 'W/|W|' }] },
         mark: { type: 'point', filled: true, size: 70 },
         encoding: {
           x: { field: 're', ...axis('Re W') },
@@ -150,12 +151,11 @@ export function holonomySpec(result: unknown, options: ChartOptions = {}): Chart
         },
       },
       {
-        data: { values: lines.map((text, i) => ({ text, i })) },
-        mark: { type: 'text', align: 'left', baseline: 'top', fontSize: 10, x: 4, dy: 0 },
-        encoding: { y: { field: 'i', type: 'ordinal', axis: null, scale: { range: [4, 4 + 13 * lines.length] } }, text: { field: 'text' } },
+        data: { values: [{}] },
+        mark: { type: 'text', align: 'left', baseline: 'top', fontSize: 10, x: 4, y: 4, lineBreak: '\n', lineHeight: 13 },
+        encoding: { text: { value: lines.join('\n') } },
       },
     ],
-    resolve: { scale: { y: 'independent' } },
   };
   return baseSpec(options, { hconcat: [loopPanel, planePanel], spacing: 24 }, null);
 }

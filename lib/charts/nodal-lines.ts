@@ -4,7 +4,7 @@ import {
   baseSpec,
   type ChartOptions,
   type ChartSpec,
-  DIVERGING_SCHEME,
+  SIGN_COLOURS,
   layers,
   mapAxesFor,
   mapSize,
@@ -13,7 +13,7 @@ import {
   unitsOf,
   withMapAxes,
 } from './common';
-import { fieldCells, heatLayer, latticeAxis } from './grid-field';
+import { categoryLayer, fieldCells, latticeAxis } from './grid-field';
 import { outlineLayer } from './well-outline';
 import { asRecord, ChartDataError, gridOf, isRecord, numberList, point, tubesOf, type Json } from './read-result';
 
@@ -65,9 +65,16 @@ export function nodalLinesSpec(result: unknown, options: ChartOptions = {}): Cha
     {
       layer: withMapAxes(
         layers(
-          heatLayer(cells, { scheme: DIVERGING_SCHEME, title: 'sign of ψ (cut gauge)', domain: [-1, 1] }),
+          categoryLayer(
+            cells,
+            [
+              { value: 1, label: 'ψ > 0', colour: SIGN_COLOURS.positive },
+              { value: -1, label: 'ψ < 0', colour: SIGN_COLOURS.negative },
+            ],
+            'sign (cut gauge)',
+          ),
           outlineLayer(options.params, units),
-          polylineLayer(cuts, units, { stroke: '#555555', strokeWidth: 1, strokeDash: [1, 2] }),
+          polylineLayer(cuts, units, { stroke: '#ffffff', strokeWidth: 1.2, strokeDash: [2, 2] }),
           polylineLayer(lines, units, { stroke: '#000000', strokeWidth: 1.6 }),
           tubeLayer(tubes, units),
         ),

@@ -1,8 +1,5 @@
-// Support for the foundation web tests (API and browser): people and manuscripts written straight into the test
-// database, an HTTP client with a cookie jar that signs in through next-auth, and a reader for the fake SMTP mailbox.
-import { readdir, readFile, stat } from 'node:fs/promises';
-import path from 'node:path';
-import bcrypt from 'bcryptjs';
+// Support for the foundation web tests (API and browser), on top of tests/helpers: people, manuscripts and
+// snapshots in the test database, an HTTP client whose cookie jar signs in through next-auth, and mailbox reading.
 import { and, count, eq } from 'drizzle-orm';
 import { db } from '@/db';
 import {
@@ -15,16 +12,17 @@ import {
   users,
   type MemberRole,
 } from '@/db/schema';
+import { APP_URL } from '../helpers/app';
+import { createTestUser, RUN_TAG, TEST_PASSWORD } from '../helpers/db';
+import { linksIn, waitForMailTo as waitForStoredMail, type StoredMessage } from '../helpers/mail';
+import { listMessages } from '@/lib/mail/mailbox';
 
-export const APP_URL = (process.env.APP_URL || 'http://127.0.0.1:3100').replace(/\/+$/, '');
-export const MAIL_DIR = path.resolve(process.env.MAIL_DIR || '.data/mail');
+export { APP_URL };
 
 /** A tag unique to this test run, so rows from earlier runs (snapshots can never be deleted) never collide. */
-export const RUN = Date.now().toString(36);
+export const RUN = RUN_TAG;
 
-export const PASSWORD = 'correct horse battery';
-// Cost 4 keeps the suite quick; bcrypt.compare reads the cost from the hash, so the app verifies it as usual.
-const PASSWORD_HASH = bcrypt.hashSync(PASSWORD, 4);
+export const PASSWORD = TEST_PASSWORD;
 
 export interface TestUser {
   id: string;
@@ -33,15 +31,10 @@ export interface TestUser {
   isAdmin: boolean;
 }
 
-/** Create a user with password {@link PASSWORD}. */
+/** Create a user with password {@link PASSWORD} (a site admin with `isAdmin`). */
 export async function createUser({ label, isAdmin = false }: { label: string; isAdmin?: boolean }): Promise<TestUser> {
-  const email = `${label}.${RUN}@fluxfolio.test`.toLowerCase();
-  const name = `${label[0].toUpperCase()}${label.slice(1)} Tester`;
-  const [row] = await db
-    .insert(users)
-    .values({ email, name, passwordHash: PASSWORD_HASH, isAdmin, emailVerified: new Date() })
-    .returning();
-  return { id: row.id, email: row.email, name, isAdmin };
+  const user = await createTestUser({ label, role: isAdmin ? 'admin' : 'user' });
+  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
 }
 
 /** Create a manuscript with the given members (the first owner is recorded as creator). */
@@ -204,65 +197,32 @@ export async function signedInClient(user: TestUser): Promise<Client> {
 }
 
 // ---------------------------------------------------------------------------------------------
-// Fake SMTP mailbox (the SMTP server writes one JSON file per received message into MAIL_DIR)
+// Fake SMTP mailbox (scripts/smtp.mjs stores each received message as JSON in MAIL_DIR)
 // ---------------------------------------------------------------------------------------------
 
 export interface ReceivedMail {
-  file: string;
-  raw: string;
   subject: string;
+  /** Text and HTML parts together, for content checks and failure messages. */
+  raw: string;
+  /** Every link in the text part. */
   links: string[];
 }
 
-async function jsonFiles(dir: string): Promise<string[]> {
-  const out: string[] = [];
-  let entries: import('node:fs').Dirent[] = [];
-  try {
-    entries = await readdir(dir, { withFileTypes: true });
-  } catch {
-    return out;
-  }
-  for (const entry of entries) {
-    const full = path.join(dir, entry.name);
-    if (entry.isDirectory()) out.push(...(await jsonFiles(full)));
-    else if (entry.name.endsWith('.json')) out.push(full);
-  }
-  return out;
+function toReceived(message: StoredMessage): ReceivedMail {
+  return { subject: message.subject, raw: `${message.text}\n${message.html}`, links: linksIn(message) };
 }
 
-function decodeLinks(raw: string): string[] {
-  // JSON escapes "&" as \u0026 in some writers and "/" as \/; undo those before matching.
-  const text = raw.replace(/\\u0026/g, '&').replace(/\\\//g, '/').replace(/&amp;/g, '&');
-  return [...new Set(text.match(/https?:\/\/[^\s"'<>\\)]+/g) ?? [])];
-}
-
-/** Messages addressed to `email` that arrived after `since` (ms epoch), oldest first. */
+/** Messages addressed to `email` that arrived after `since` (ms epoch, with 1 s tolerance), oldest first. */
 export async function mailsTo(email: string, since = 0): Promise<ReceivedMail[]> {
-  const found: { mtime: number; mail: ReceivedMail }[] = [];
-  for (const file of await jsonFiles(MAIL_DIR)) {
-    const info = await stat(file);
-    if (info.mtimeMs < since - 1000) continue; // tolerate coarse file timestamps
-    const raw = await readFile(file, 'utf8');
-    let data: any;
-    try {
-      data = JSON.parse(raw);
-    } catch {
-      continue;
-    }
-    const recipients = JSON.stringify(data.to ?? data.envelope ?? data.headers ?? data).toLowerCase();
-    if (!recipients.includes(email.toLowerCase())) continue;
-    found.push({ mtime: info.mtimeMs, mail: { file, raw, subject: String(data.subject ?? ''), links: decodeLinks(raw) } });
-  }
-  return found.sort((a, b) => a.mtime - b.mtime).map((entry) => entry.mail);
+  const wanted = email.toLowerCase();
+  const messages = await listMessages();
+  return messages
+    .filter((m) => m.to.some((to) => to.toLowerCase() === wanted) && m.receivedAt.getTime() >= since - 1000)
+    .reverse()
+    .map(toReceived);
 }
 
-/** Wait (polling the mailbox) for a message to `email` after `since`; fails after `timeoutMs`. */
+/** Wait (polling the mailbox) for a message to `email` after `since` (ms epoch). */
 export async function waitForMailTo(email: string, since: number, timeoutMs = 15_000): Promise<ReceivedMail> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const mails = await mailsTo(email, since);
-    if (mails.length) return mails[mails.length - 1];
-    if (Date.now() > deadline) throw new Error(`No mail to ${email} arrived in ${MAIL_DIR} within ${timeoutMs} ms`);
-    await new Promise((resolve) => setTimeout(resolve, 200));
-  }
+  return toReceived(await waitForStoredMail(email, { since: new Date(since), timeoutMs }));
 }

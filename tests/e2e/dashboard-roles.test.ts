@@ -94,11 +94,11 @@ describe('small screens', () => {
     const context = await browser.newContext({ viewport: { width: 375, height: 812 } });
     const page = await context.newPage();
     await page.goto(`${APP_URL}/sign-in`);
-    // Skip link, then the word mark, then the first field of the password form.
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
-    await page.keyboard.press('Tab');
+    // Tab from the top of the page (skip link, header links) until a form field has focus.
+    for (let step = 0; step < 6; step++) {
+      await page.keyboard.press('Tab');
+      if (await page.evaluate(() => document.activeElement?.tagName === 'INPUT')) break;
+    }
     const focused = await page.evaluate(() => {
       const element = document.activeElement as HTMLInputElement | null;
       return element ? { tag: element.tagName, name: element.name, label: element.labels?.[0]?.textContent ?? null } : null;

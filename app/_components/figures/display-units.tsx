@@ -44,7 +44,7 @@ export function DisplayUnitsProvider({ children }: { children: ReactNode }) {
 }
 
 /**
- * The units switch: dimensionless (L, ħ²/2mL²) or physical (nm, meV) with the length unit L and m*/mₑ.
+ * The units switch: dimensionless (L, ħ²/2mL²) or physical (nm, meV) with the length unit L and the effective mass ratio.
  * Invalid numbers are shown inline and not applied.
  */
 export function DisplayUnitsSwitch({ className }: { className?: string }) {

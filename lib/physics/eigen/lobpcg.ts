@@ -13,8 +13,6 @@ export const DEFAULT_TOL = 1e-9;
 export const DEFAULT_MAX_ITER = 5000;
 /** A column whose squared remaining norm falls below this fraction during orthonormalisation is dropped. */
 const DROP_RTOL = 1e-10;
-/** Second Cholesky-QR pass: each column must keep this fraction of its squared norm, else the basis is rebuilt. */
-const REORTH_MIN = 0.5;
 
 /**
  * Block size: k wanted vectors plus guard vectors (faster convergence of the k-th level, and whole degenerate
@@ -32,7 +30,6 @@ interface Workspace {
   S: Cols;
   AS: Cols;
   T: Cols;
-  AT: Cols;
   R: Cols;
   tmp: Cols;
 }
@@ -141,21 +138,85 @@ function projectOut(ws: Workspace, X: Cols, m: number, AX: Cols, V: Cols, c: num
   }
 }
 
-/** Orthonormalises the columns [P | W] against X and among themselves; returns the kept (p, a), or null on breakdown. */
-function buildSearchSpace(ws: Workspace, p: number, a: number): { p: number; a: number; minPivot: number } {
-  const { m } = ws;
-  const PW = at(ws.S, m);
-  const AP = at(ws.AS, m);
-  const c = p + a;
-  for (let j = p; j < c; j++) {
-    const norm = columnNorm(ws.n, PW, j);
-    if (norm > 0) scaleColumn(ws.n, PW, j, 1 / norm);
+/**
+ * Turns the raw residual block (a columns at W) into new search directions: unit columns, orthogonal to the
+ * orthonormal block Q = [X P] (q columns at the start of S), orthonormal among themselves; dependent ones dropped.
+ * @returns the number of kept W columns
+ */
+function orthonormalizeW(ws: Workspace, q: number, a: number): number {
+  const W = at(ws.S, q);
+  for (let j = 0; j < a; j++) {
+    const norm = columnNorm(ws.n, W, j);
+    if (norm > 0) scaleColumn(ws.n, W, j, 1 / norm);
   }
-  projectOut(ws, at(ws.S, 0), m, at(ws.AS, 0), PW, c, AP, p);
-  let res = cholQR(ws, PW, c, AP, p);
-  const second = cholQR(ws, PW, res.kept, AP, res.keptTracked);
-  res = { kept: second.kept, keptTracked: second.keptTracked, minPivot: Math.min(res.kept === second.kept ? 1 : 0, second.minPivot) };
-  return { p: res.keptTracked, a: res.kept - res.keptTracked, minPivot: res.minPivot };
+  projectOut(ws, at(ws.S, 0), q, at(ws.AS, 0), W, a, null, 0);
+  const first = cholQR(ws, W, a, null, 0);
+  const second = cholQR(ws, W, first.kept, null, 0);
+  return second.kept;
+}
+
+/**
+ * Coefficients of the new P directions in the basis S: the W and P parts of the Ritz coefficients C, made orthogonal
+ * to C itself and orthonormal (small s x m work, so P stays orthonormal and orthogonal to the new X without touching
+ * long vectors). Columns that vanish (no new direction for that Ritz vector) are flagged invalid.
+ */
+function pCoefficients(s: number, m: number, cr: Float64Array, ci: Float64Array | null, active: number[], valid: Uint8Array) {
+  const zr = new Float64Array(s * m);
+  const zi = ci ? new Float64Array(s * m) : null;
+  for (let i = m; i < s; i++) {
+    for (let j = 0; j < m; j++) {
+      zr[i * m + j] = cr[i * m + j];
+      if (zi && ci) zi[i * m + j] = ci[i * m + j];
+    }
+  }
+  // Complex column helpers on row-major s x m arrays.
+  const dot = (ar: Float64Array, ai: Float64Array | null, p: number, br: Float64Array, bi: Float64Array | null, q: number): [number, number] => {
+    let re = 0;
+    let im = 0;
+    for (let i = 0; i < s; i++) {
+      const a = ar[i * m + p];
+      const b = ai ? ai[i * m + p] : 0;
+      const c = br[i * m + q];
+      const d = bi ? bi[i * m + q] : 0;
+      re += a * c + b * d;
+      im += a * d - b * c;
+    }
+    return [re, im];
+  };
+  const subtract = (tr: Float64Array, ti: Float64Array | null, q: number, br: Float64Array, bi: Float64Array | null, p: number, [cre, cim]: [number, number]) => {
+    for (let i = 0; i < s; i++) {
+      const c = br[i * m + p];
+      const d = bi ? bi[i * m + p] : 0;
+      tr[i * m + q] -= cre * c - cim * d;
+      if (ti) ti[i * m + q] -= cre * d + cim * c;
+    }
+  };
+  // Only columns still being iterated get a P direction: locked ones would use up the s - m available dimensions.
+  valid.fill(0);
+  const done: number[] = [];
+  for (const j of active) {
+    const before = Math.sqrt(dot(zr, zi, j, zr, zi, j)[0]);
+    for (let pass = 0; pass < 2; pass++) {
+      for (let l = 0; l < m; l++) subtract(zr, zi, j, cr, ci, l, dot(cr, ci, l, zr, zi, j));
+      for (const l of done) subtract(zr, zi, j, zr, zi, l, dot(zr, zi, l, zr, zi, j));
+    }
+    const norm = Math.sqrt(dot(zr, zi, j, zr, zi, j)[0]);
+    valid[j] = norm > 1e-8 * before && norm > 1e-14 ? 1 : 0;
+    if (valid[j]) done.push(j);
+    for (let i = 0; i < s; i++) {
+      zr[i * m + j] = valid[j] ? zr[i * m + j] / norm : 0;
+      if (zi) zi[i * m + j] = valid[j] ? zi[i * m + j] / norm : 0;
+    }
+  }
+  // Columns without a direction are zero.
+  for (let j = 0; j < m; j++) {
+    if (valid[j]) continue;
+    for (let i = 0; i < s; i++) {
+      zr[i * m + j] = 0;
+      if (zi) zi[i * m + j] = 0;
+    }
+  }
+  return { zr, zi };
 }
 
 /** Rayleigh-Ritz on the s-column orthonormal basis: lowest m Ritz values and coefficients (row-major s x m). */
@@ -193,7 +254,6 @@ function rayleighRitz(ws: Workspace, s: number, lambda: Float64Array, haveLambda
 
 function swap(ws: Workspace): void {
   [ws.S, ws.T] = [ws.T, ws.S];
-  [ws.AS, ws.AT] = [ws.AT, ws.AS];
 }
 
 /** Fills X (columns 0..m-1 of S) from the warm start and seeded random columns; returns nothing, X orthonormal. */
@@ -267,26 +327,34 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
     S: allocCols(3 * m, n, complex),
     AS: allocCols(3 * m, n, complex),
     T: allocCols(3 * m, n, complex),
-    AT: allocCols(3 * m, n, complex),
     R: allocCols(m, n, complex),
     tmp: allocCols(2 * m, n, complex),
   };
 
   initialBlock(ws, options);
-  matVec(matrix, ws, at(ws.S, 0), at(ws.AS, 0), m);
   let lambda = new Float64Array(m);
-  {
+  // Rayleigh-Ritz on X alone (exact A X): used at the start and to refresh drifting recurrences.
+  const restartOnX = () => {
+    matVec(matrix, ws, at(ws.S, 0), at(ws.AS, 0), m);
     const rr = rayleighRitz(ws, m, lambda, false);
     combine(n, at(ws.S, 0), m, rr.cr, rr.ci, m, 0, at(ws.T, 0), m, false);
-    combine(n, at(ws.AS, 0), m, rr.cr, rr.ci, m, 0, at(ws.AT, 0), m, false);
     swap(ws);
+    matVec(matrix, ws, at(ws.S, 0), at(ws.AS, 0), m);
     lambda = rr.values;
-  }
+  };
+  restartOnX();
 
   const rel = new Float64Array(m);
   const abs = new Float64Array(m);
-  const best = { worst: Infinity, values: new Float64Array(k), re: new Float64Array(k * n), im: complex ? new Float64Array(k * n) : null, res: new Float64Array(k), iteration: 0 };
-  let p = 0;
+  const validP = new Uint8Array(m);
+  const best = {
+    worst: Infinity,
+    values: new Float64Array(k),
+    re: new Float64Array(k * n),
+    im: complex ? new Float64Array(k * n) : null,
+    res: new Float64Array(k),
+  };
+  let haveP = false;
   let iterations = 0;
   let converged = false;
   let firstWorst = NaN;
@@ -323,7 +391,6 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
       best.re.set(X.re.subarray(0, k * n));
       if (best.im && X.im) best.im.set(X.im.subarray(0, k * n));
       best.res.set(abs.subarray(0, k));
-      best.iteration = iterations;
     }
     if (worst <= tol) {
       converged = true;
@@ -345,53 +412,46 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
     // Soft locking: only columns whose residual is still above tolerance get new search directions.
     const active: number[] = [];
     for (let j = 0; j < m; j++) if (rel[j] > tol) active.push(j);
-    const a = active.length;
-    if (p > 0) {
-      active.forEach((j, t) => {
-        if (j !== t) {
-          copyColumn(n, at(ws.S, m), j, at(ws.S, m), t);
-          copyColumn(n, at(ws.AS, m), j, at(ws.AS, m), t);
+    let p = 0;
+    if (haveP) {
+      for (const j of active) {
+        if (!validP[j]) continue;
+        if (j !== p) {
+          copyColumn(n, at(ws.S, m), j, at(ws.S, m), p);
+          copyColumn(n, at(ws.AS, m), j, at(ws.AS, m), p);
         }
-      });
-      p = a;
+        p++;
+      }
     }
+    const a = active.length;
     active.forEach((j, t) => {
       if (j !== t) copyColumn(n, ws.R, j, ws.R, t);
     });
-    const fillW = (pCount: number) => {
-      const W = at(ws.S, m + pCount);
-      if (options.preconditioner) {
-        const span = (arr: Float64Array, off: number) => arr.subarray(off * n, (off + a) * n);
-        options.preconditioner(
-          { n, k: a, re: span(ws.R.re, 0), im: ws.R.im ? span(ws.R.im, 0) : null },
-          { n, k: a, re: span(W.re, W.off), im: W.im ? span(W.im, W.off) : null },
-        );
-      } else {
-        for (let t = 0; t < a; t++) copyColumn(n, ws.R, t, W, t);
-      }
-    };
-    fillW(p);
-    let space = buildSearchSpace(ws, p, a);
-    if (p > 0 && space.minPivot < REORTH_MIN) {
-      // Ill-conditioned basis: restart this step without the P directions.
-      fillW(0);
-      space = buildSearchSpace(ws, 0, a);
+    const W = at(ws.S, m + p);
+    if (options.preconditioner) {
+      const span = (arr: Float64Array, off: number) => arr.subarray(off * n, (off + a) * n);
+      options.preconditioner(
+        { n, k: a, re: span(ws.R.re, 0), im: ws.R.im ? span(ws.R.im, 0) : null },
+        { n, k: a, re: span(W.re, W.off), im: W.im ? span(W.im, W.off) : null },
+      );
+    } else {
+      for (let t = 0; t < a; t++) copyColumn(n, ws.R, t, W, t);
     }
-    p = space.p;
-    const aKept = space.a;
-    if (p + aKept === 0) break; // nothing new to search: X spans an invariant subspace to rounding
-    matVec(matrix, ws, at(ws.S, m + p), at(ws.AS, m + p), aKept);
+    const aKept = orthonormalizeW(ws, m + p, a);
+    if (process.env.H1DBG && iterations % 50 === 1) console.error(iterations, "p", p, "a", a, "kept", aKept, Array.from(rel).map((v) => v.toExponential(1)).join(" "));
+    if (aKept + p === 0) break; // no new direction: X spans an invariant subspace to rounding
+    matVec(matrix, ws, W, at(ws.AS, m + p), aKept);
     const s = m + p + aKept;
     const rr = rayleighRitz(ws, s, lambda, true);
     combine(n, at(ws.S, 0), s, rr.cr, rr.ci, m, 0, at(ws.T, 0), m, false);
-    combine(n, at(ws.AS, 0), s, rr.cr, rr.ci, m, 0, at(ws.AT, 0), m, false);
-    const cpr = rr.cr.subarray(m * m);
-    const cpi = rr.ci ? rr.ci.subarray(m * m) : null;
-    combine(n, at(ws.S, m), s - m, cpr, cpi, m, 0, at(ws.T, m), m, false);
-    combine(n, at(ws.AS, m), s - m, cpr, cpi, m, 0, at(ws.AT, m), m, false);
+    const z = pCoefficients(s, m, rr.cr, rr.ci, active, validP);
+    combine(n, at(ws.S, 0), s, z.zr, z.zi, m, 0, at(ws.T, m), m, false);
     swap(ws);
+    // Exact A-images of the new X and P (a few sparse products are cheaper than updating them by recurrence,
+    // and nothing drifts).
+    matVec(matrix, ws, at(ws.S, 0), at(ws.AS, 0), 2 * m);
     lambda = rr.values;
-    p = m;
+    haveP = true;
   }
 
   options.onProgress?.(1);

@@ -1,8 +1,8 @@
 // Shift-invert eigensolver for the lowest levels: a block Krylov (Davidson) space built with (H - sigma)^-1 from a
 // sparse LDL factorisation, Rayleigh-Ritz on H itself; plus an LDL preconditioner for LOBPCG scans.
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { csrMatVecColumns } from '../csr';
 import { throwIfAborted } from '../errors';
+import { hermitianEigen } from './dense';
 import type { CsrMatrix, EigenOptions, EigenResult, Preconditioner, StateBlock } from '../types';
 import { analyzeLdl, factorLdl, LdlPivotError, matchesPattern, solveLdl, type LdlFactor, type LdlSymbolic } from './ldl';
 import type { NestedDissectionOptions } from './ordering';
@@ -42,8 +42,8 @@ const DROP_TOLERANCE = 1e-10;
  * positive definite and sigma = 0 works; otherwise a Gershgorin lower bound is used, and the inertia of the LDL
  * factorisation (no negative pivot) proves that no level lies below sigma.
  *
- * Complex Hermitian matrices use the complex LDL^H; the small dense Hermitian problems are solved through the real
- * symmetric embedding [[A, -B], [B, A]] (PHYSICS.md section 2).
+ * Complex Hermitian matrices use the complex LDL^H; the small dense Hermitian problems go to the core's dense solver
+ * (real symmetric embedding [[A, -B], [B, A]], PHYSICS.md section 2).
  *
  * @param matrix Hermitian CSR, both triangles; energies in hbar^2/(2 m L^2)
  * @param k number of lowest levels, 1 <= k <= n
@@ -82,16 +82,13 @@ export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: Shi
   const space = new SearchSpace(matrix, maxBasis, complex);
   const rng = seededRandom(options.seed ?? 1);
 
-  // Start: warm vectors as they are, then random vectors smoothed by one inverse application.
+  // Start: warm vectors and seeded random ones, all smoothed by one inverse application. For a warm start from a
+  // neighbouring configuration this matters: the old states have a large residual concentrated on the few links
+  // that changed, and (H - sigma)^-1 turns that spike into a smooth, small correction.
   const start = startBlock(n, track, complex, options.initial ?? null, rng);
-  const coldColumns = track - start.warm;
-  if (start.warm > 0) space.addColumns(start.block, 0, start.warm);
-  if (coldColumns > 0) {
-    const cold = sliceBlock(start.block, start.warm, coldColumns);
-    const smoothed = emptyBlock(n, coldColumns, complex);
-    solveLdl(factor, cold, smoothed);
-    space.addColumns(smoothed, 0, coldColumns);
-  }
+  const smoothed = emptyBlock(n, track, complex);
+  solveLdl(factor, start.block, smoothed);
+  space.addColumns(smoothed, 0, track);
 
   let iterations = 0;
   let best = space.ritz(track);
@@ -221,7 +218,7 @@ function diagonalMagnitude(matrix: CsrMatrix): number {
 }
 
 // ---------------------------------------------------------------------------------------------------------
-// Search space: orthonormal basis Q, H Q and the projected matrix G = Q^H H Q.
+// Search space: orthonormal basis Q and the projected matrix G = Q^H H Q.
 
 interface RitzPairs {
   values: Float64Array;
@@ -236,8 +233,6 @@ class SearchSpace {
   size = 0;
   private readonly qre: Float64Array;
   private readonly qim: Float64Array | null;
-  private readonly hre: Float64Array;
-  private readonly him: Float64Array | null;
   private readonly gre: Float64Array;
   private readonly gim: Float64Array | null;
 
@@ -249,8 +244,6 @@ class SearchSpace {
     this.n = matrix.n;
     this.qre = new Float64Array(capacity * this.n);
     this.qim = complex ? new Float64Array(capacity * this.n) : null;
-    this.hre = new Float64Array(capacity * this.n);
-    this.him = complex ? new Float64Array(capacity * this.n) : null;
     this.gre = new Float64Array(capacity * capacity);
     this.gim = complex ? new Float64Array(capacity * capacity) : null;
   }
@@ -272,44 +265,62 @@ class SearchSpace {
       if (block.im) wi.set(block.im.subarray(from * n, (from + p) * n));
       else wi.fill(0);
     }
-    const before = new Float64Array(p);
-    for (let t = 0; t < p; t++) before[t] = Math.sqrt(columnNormSquared(wr, wi, n, t));
-    if (size > 0) {
-      const cr = new Float64Array(size * p);
-      const ci = this.complex ? new Float64Array(size * p) : null;
-      for (let pass = 0; pass < 2; pass++) {
-        projectCoefficients(this.qre, this.qim, size, wr, wi, p, n, cr, ci);
-        subtractProjection(this.qre, this.qim, size, wr, wi, p, n, cr, ci);
-      }
-    }
-    // Within the block: modified Gram-Schmidt, twice, with compaction of the accepted columns.
-    let accepted = 0;
-    for (let t = 0; t < p; t++) {
-      const vr = wr.subarray(t * n, (t + 1) * n);
-      const vi = wi ? wi.subarray(t * n, (t + 1) * n) : null;
-      if (!(before[t] > 0) || !Number.isFinite(before[t])) continue;
-      for (let pass = 0; pass < 2; pass++) {
-        for (let s = 0; s < accepted; s++) {
-          const ur = wr.subarray(s * n, (s + 1) * n);
-          const ui = wi ? wi.subarray(s * n, (s + 1) * n) : null;
-          removeComponent(ur, ui, vr, vi, n);
+    // origin[t]: the column's norm on entry, in the units of its current scaling (for the drop test).
+    const origin = new Float64Array(p);
+    const norms = new Float64Array(p);
+    for (let t = 0; t < p; t++) origin[t] = norms[t] = Math.sqrt(columnNormSquared(wr, wi, n, t));
+    let accepted = p;
+    const cr = new Float64Array(Math.max(1, size * p));
+    const ci = this.complex ? new Float64Array(Math.max(1, size * p)) : null;
+    for (let round = 0; round < 3; round++) {
+      // Against the basis: block Gram-Schmidt repeated while a pass removes more than 1 - 1/sqrt(2) of a column
+      // (the criterion of Daniel, Gragg, Kaufman & Stewart, Math. Comp. 30, 772 (1976)).
+      for (let pass = 0; pass < 4 && size > 0; pass++) {
+        projectCoefficients(this.qre, this.qim, size, wr, wi, accepted, n, cr, ci);
+        subtractProjection(this.qre, this.qim, size, wr, wi, accepted, n, cr, ci);
+        let again = false;
+        for (let t = 0; t < accepted; t++) {
+          const after = Math.sqrt(columnNormSquared(wr, wi, n, t));
+          if (after < Math.SQRT1_2 * norms[t] && after > DROP_TOLERANCE * origin[t]) again = true;
+          norms[t] = after;
         }
+        if (!again) break;
       }
-      const after = Math.sqrt(columnNormSquared(vr, vi, n, 0));
-      if (!(after > DROP_TOLERANCE * before[t])) continue;
-      const inv = 1 / after;
-      const dr = wr.subarray(accepted * n, (accepted + 1) * n);
-      for (let i = 0; i < n; i++) dr[i] = vr[i] * inv;
-      if (wi && vi) {
-        const di = wi.subarray(accepted * n, (accepted + 1) * n);
-        for (let i = 0; i < n; i++) di[i] = vi[i] * inv;
+      // Within the block: modified Gram-Schmidt, twice, keeping (compacted) the columns that survive.
+      let kept = 0;
+      let clean = true;
+      for (let t = 0; t < accepted; t++) {
+        const vr = wr.subarray(t * n, (t + 1) * n);
+        const vi = wi ? wi.subarray(t * n, (t + 1) * n) : null;
+        const entry = Math.sqrt(columnNormSquared(vr, vi, n, 0));
+        if (!(entry > DROP_TOLERANCE * origin[t]) || !Number.isFinite(entry)) continue;
+        for (let pass = 0; pass < 2; pass++) {
+          for (let s = 0; s < kept; s++) {
+            removeComponent(wr.subarray(s * n, (s + 1) * n), wi ? wi.subarray(s * n, (s + 1) * n) : null, vr, vi, n);
+          }
+        }
+        const after = Math.sqrt(columnNormSquared(vr, vi, n, 0));
+        if (!(after > DROP_TOLERANCE * origin[t])) continue;
+        // A column that lost much here may have regained components along the basis: one more round.
+        if (after < Math.SQRT1_2 * entry && size > 0) clean = false;
+        const inv = 1 / after;
+        const dr = wr.subarray(kept * n, (kept + 1) * n);
+        for (let i = 0; i < n; i++) dr[i] = vr[i] * inv;
+        if (wi && vi) {
+          const di = wi.subarray(kept * n, (kept + 1) * n);
+          for (let i = 0; i < n; i++) di[i] = vi[i] * inv;
+        }
+        origin[kept] = origin[t] * inv;
+        norms[kept] = 1;
+        kept++;
       }
-      accepted++;
+      accepted = kept;
+      if (clean || accepted === 0) break;
     }
     if (accepted === 0) return 0;
     // H on the new columns, then the new columns of G = Q^H H Q.
-    const hr = this.hre.subarray(at, at + accepted * n);
-    const hi = this.him ? this.him.subarray(at, at + accepted * n) : null;
+    const hr = new Float64Array(accepted * n);
+    const hi = this.complex ? new Float64Array(accepted * n) : null;
     csrMatVecColumns(this.matrix, wr.subarray(0, accepted * n), wi ? wi.subarray(0, accepted * n) : null, hr, hi, accepted);
     const total = size + accepted;
     const gr = new Float64Array(total * accepted);
@@ -349,11 +360,12 @@ class SearchSpace {
   ritz(count: number): RitzPairs {
     const { n, size } = this;
     const want = Math.min(count, size);
-    const eig = hermitianEigen(this.gre, this.gim, size, this.capacity, want);
+    const eig = projectedEigen(this.gre, this.gim, size, this.capacity, want);
     const vectors = emptyBlock(n, want, this.complex);
     const hvectors = emptyBlock(n, want, this.complex);
     combineColumns(this.qre, this.qim, size, eig.vre, eig.vim, want, n, vectors);
-    combineColumns(this.hre, this.him, size, eig.vre, eig.vim, want, n, hvectors);
+    // H x by sparse products (5 entries a row) is cheaper than combining the stored H q columns.
+    csrMatVecColumns(this.matrix, vectors.re, vectors.im, hvectors.re, hvectors.im, want);
     const residuals = emptyBlock(n, want, this.complex);
     const residualNorms = new Float64Array(want);
     for (let j = 0; j < want; j++) {
@@ -382,9 +394,7 @@ class SearchSpace {
     const pairs = current.vectors.k >= keep ? current : this.ritz(keep);
     const kept = Math.min(keep, pairs.vectors.k);
     this.qre.set(pairs.vectors.re.subarray(0, kept * n));
-    this.hre.set(pairs.hvectors.re.subarray(0, kept * n));
     if (this.qim) this.qim.set(pairs.vectors.im!.subarray(0, kept * n));
-    if (this.him) this.him.set(pairs.hvectors.im!.subarray(0, kept * n));
     this.gre.fill(0);
     this.gim?.fill(0);
     for (let j = 0; j < kept; j++) this.gre[j * this.capacity + j] = pairs.values[j];
@@ -448,6 +458,30 @@ function projectCoefficients(
         }
         continue;
       }
+      for (; j + 1 < m; j += 2) {
+        const q0 = j * n;
+        const q1 = q0 + n;
+        let s0r = 0;
+        let s0i = 0;
+        let s1r = 0;
+        let s1i = 0;
+        for (let i = i0; i < i1; i++) {
+          const br = wr[wo + i];
+          const bi = wi[wo + i];
+          const a0r = qr[q0 + i];
+          const a0i = qi[q0 + i];
+          const a1r = qr[q1 + i];
+          const a1i = qi[q1 + i];
+          s0r += a0r * br + a0i * bi;
+          s0i += a0r * bi - a0i * br;
+          s1r += a1r * br + a1i * bi;
+          s1i += a1r * bi - a1i * br;
+        }
+        cr[j * p + t] += s0r;
+        ci[j * p + t] += s0i;
+        cr[(j + 1) * p + t] += s1r;
+        ci[(j + 1) * p + t] += s1i;
+      }
       for (; j < m; j++) {
         const qo = j * n;
         let sr = 0;
@@ -505,6 +539,22 @@ function subtractProjection(
         }
         continue;
       }
+      for (; j + 1 < m; j += 2) {
+        const q0 = j * n;
+        const q1 = q0 + n;
+        const a0r = cr[j * p + t];
+        const a0i = ci[j * p + t];
+        const a1r = cr[(j + 1) * p + t];
+        const a1i = ci[(j + 1) * p + t];
+        for (let i = i0; i < i1; i++) {
+          const b0r = qr[q0 + i];
+          const b0i = qi[q0 + i];
+          const b1r = qr[q1 + i];
+          const b1i = qi[q1 + i];
+          wr[wo + i] -= a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
+          wi[wo + i] -= a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
+        }
+      }
       for (; j < m; j++) {
         const qo = j * n;
         const ar = cr[j * p + t];
@@ -561,6 +611,22 @@ function combineColumns(
         }
         continue;
       }
+      for (; j + 1 < m; j += 2) {
+        const q0 = j * n;
+        const q1 = q0 + n;
+        const a0r = yr[t * m + j];
+        const a0i = yi ? yi[t * m + j] : 0;
+        const a1r = yr[t * m + j + 1];
+        const a1i = yi ? yi[t * m + j + 1] : 0;
+        for (let i = i0; i < i1; i++) {
+          const b0r = qr[q0 + i];
+          const b0i = qi[q0 + i];
+          const b1r = qr[q1 + i];
+          const b1i = qi[q1 + i];
+          xr[xo + i] += a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
+          xi[xo + i] += a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
+        }
+      }
       for (; j < m; j++) {
         const qo = j * n;
         const ar = yr[t * m + j];
@@ -603,90 +669,28 @@ function columnNormSquared(vr: Float64Array, vi: Float64Array | null, n: number,
 }
 
 // ---------------------------------------------------------------------------------------------------------
-// Small dense Hermitian eigenproblem (ml-matrix, real symmetric embedding for the complex case).
+// Small dense Hermitian eigenproblem: the core's dense solver (real symmetric embedding for complex G).
 
-/**
- * Lowest `want` eigenpairs of the m x m Hermitian matrix G (row stride `stride`), vectors as columns of length m.
- * Complex G = A + iB is embedded as [[A, -B], [B, A]]: each eigenvalue appears twice, with (u; v) and (-v; u)
- * standing for u + iv and i (u + iv); complex Gram-Schmidt picks one vector per complex direction.
- */
-function hermitianEigen(
+/** Lowest `want` eigenpairs of the m x m Hermitian G (row stride `stride`), vectors as columns of length m. */
+function projectedEigen(
   gre: Float64Array,
   gim: Float64Array | null,
   m: number,
   stride: number,
   want: number,
 ): { values: Float64Array; vre: Float64Array; vim: Float64Array | null } {
-  if (!gim) {
-    const a = new Matrix(m, m);
-    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) a.set(i, j, 0.5 * (gre[i * stride + j] + gre[j * stride + i]));
-    const evd = new EigenvalueDecomposition(a, { assumeSymmetric: true });
-    const order = sortedOrder(evd.realEigenvalues);
-    const V = evd.eigenvectorMatrix;
-    const values = new Float64Array(want);
-    const vre = new Float64Array(m * want);
-    for (let t = 0; t < want; t++) {
-      values[t] = evd.realEigenvalues[order[t]];
-      for (let i = 0; i < m; i++) vre[t * m + i] = V.get(i, order[t]);
-    }
-    return { values, vre, vim: null };
-  }
-  const a = new Matrix(2 * m, 2 * m);
+  const re = new Float64Array(m * m);
+  const im = gim ? new Float64Array(m * m) : null;
   for (let i = 0; i < m; i++) {
-    for (let j = 0; j < m; j++) {
-      const re = 0.5 * (gre[i * stride + j] + gre[j * stride + i]);
-      const im = 0.5 * (gim[i * stride + j] - gim[j * stride + i]);
-      a.set(i, j, re);
-      a.set(i + m, j + m, re);
-      a.set(i, j + m, -im);
-      a.set(i + m, j, im);
-    }
+    re.set(gre.subarray(i * stride, i * stride + m), i * m);
+    if (im && gim) im.set(gim.subarray(i * stride, i * stride + m), i * m);
   }
-  const evd = new EigenvalueDecomposition(a, { assumeSymmetric: true });
-  const order = sortedOrder(evd.realEigenvalues);
-  const V = evd.eigenvectorMatrix;
-  const values = new Float64Array(want);
-  const vre = new Float64Array(m * want);
-  const vim = new Float64Array(m * want);
-  let taken = 0;
-  for (let t = 0; t < order.length && taken < want; t++) {
-    const ur = new Float64Array(m);
-    const ui = new Float64Array(m);
-    for (let i = 0; i < m; i++) {
-      ur[i] = V.get(i, order[t]);
-      ui[i] = V.get(i + m, order[t]);
-    }
-    const before = Math.sqrt(dotSelf(ur, ui));
-    for (let pass = 0; pass < 2; pass++) {
-      for (let s = 0; s < taken; s++) {
-        const pr = vre.subarray(s * m, (s + 1) * m);
-        const pi = vim.subarray(s * m, (s + 1) * m);
-        let cr = 0;
-        let ci = 0;
-        for (let i = 0; i < m; i++) {
-          cr += pr[i] * ur[i] + pi[i] * ui[i];
-          ci += pr[i] * ui[i] - pi[i] * ur[i];
-        }
-        for (let i = 0; i < m; i++) {
-          ur[i] -= cr * pr[i] - ci * pi[i];
-          ui[i] -= cr * pi[i] + ci * pr[i];
-        }
-      }
-    }
-    const after = Math.sqrt(dotSelf(ur, ui));
-    if (after < 0.5 * before) continue; // the partner i(u + iv) of a direction already taken
-    for (let i = 0; i < m; i++) {
-      vre[taken * m + i] = ur[i] / after;
-      vim[taken * m + i] = ui[i] / after;
-    }
-    values[taken] = evd.realEigenvalues[order[t]];
-    taken++;
-  }
-  return { values, vre, vim };
-}
-
-function sortedOrder(values: number[]): number[] {
-  return values.map((_, i) => i).sort((x, y) => values[x] - values[y] || x - y);
+  const eig = hermitianEigen(re, im, m);
+  return {
+    values: eig.values.slice(0, want),
+    vre: eig.vectorsRe.slice(0, want * m),
+    vim: eig.vectorsIm ? eig.vectorsIm.slice(0, want * m) : null,
+  };
 }
 
 // ---------------------------------------------------------------------------------------------------------

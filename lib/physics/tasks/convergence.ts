@@ -5,7 +5,7 @@ import { LimitError } from '../errors';
 import { buildHamiltonian } from '../hamiltonian';
 import type { ConvergenceSpec } from '../spec/convergence';
 import type { Vec2 } from '../types';
-import { checkAbort, elapsedMs, prepareTask, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, yieldToLoop } from './task-support';
+import { checkAbort, elapsedMs, prepareTask, taskMethod, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, yieldToLoop } from './task-support';
 
 /** One grid of the study. */
 export interface ConvergenceGrid {
@@ -129,7 +129,7 @@ export async function runConvergence(spec: ConvergenceSpec, ctx: TaskRunContext 
     const { lattice, tubes } = problem;
     const levels = Math.min(of.levels, lattice.n);
     const matrix = buildHamiltonian(lattice, tubes);
-    const res = lowestEigenpairs(matrix, levels, { tol: of.tol ?? TASK_DEFAULT_TOL, seed: 1, signal: ctx.signal });
+    const res = lowestEigenpairs(matrix, levels, { tol: of.tol ?? TASK_DEFAULT_TOL, seed: 1, signal: ctx.signal, method: taskMethod(ctx, lattice.n) });
     iterations += res.iterations;
     for (let l = 0; l < levels; l++) maxResidual = Math.max(maxResidual, res.residualNorms[l] / Math.max(1, Math.abs(res.values[l])));
     grids.push({ h, offset, unknowns: lattice.n, levels: Array.from(res.values), tubes: tubes.map((t) => [t.at[0], t.at[1]] as Vec2) });

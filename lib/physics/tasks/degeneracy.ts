@@ -23,6 +23,7 @@ import {
   elapsedMs,
   gridReport,
   prepareTask,
+  taskMethod,
   progressReporter,
   runtimeFacts,
   type ScanTuning,
@@ -119,7 +120,7 @@ function plaquetteRange(lo: number, hi: number, h: number, f: number): [number, 
  * const r = await runDegeneracy(spec, { workers: 2 });
  * r.points[0].at; // [0, 0] for a half tube in a disk centred at the origin
  */
-export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext & ScanTuning = {}): Promise<DegeneracyResult> {
+export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext = {}): Promise<DegeneracyResult> {
   const start = performance.now();
   const alpha = spec.moving.alpha;
   if (!isRealFlux([alpha])) throw new SpecError(DEGENERACY_NEEDS_REAL, 'moving.alpha');
@@ -147,7 +148,7 @@ export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext & 
   if (k > lattice.n) throw new SpecError(`pair ${JSON.stringify(pair)} asks for more levels than the ${lattice.n} unknowns of this grid`, 'pair');
   const scanTol = spec.tol ?? SCAN_DEFAULT_TOL;
   const warmStart = ctx.warmStart ?? true;
-  const job: ScanJob = { lattice, fixed, alpha, a0, b0, na, nb, k, m: pair[0] + 1, tol: scanTol, seed: 1, warmStart };
+  const job: ScanJob = { lattice, fixed, alpha, a0, b0, na, nb, k, m: pair[0] + 1, tol: scanTol, seed: 1, warmStart, method: taskMethod(ctx, lattice.n) };
   const chunks = scanChunks(nb);
   const total = na * nb;
   const report = progressReporter(ctx, 'scanning tube positions');
@@ -347,6 +348,6 @@ function locatePoint(
 /** Gap of the pair at scan position (p, q), recomputed cold at REFINE_TOL. */
 function tightGap(job: ScanJob, p: number, q: number, pair: [number, number], signal?: AbortSignal): number {
   const matrix = buildHamiltonian(job.lattice, tubesWithMoving(job, job.a0 + p, job.b0 + q));
-  const res = lowestEigenpairs(matrix, job.k, { tol: Math.min(REFINE_TOL, job.tol), seed: 1, signal });
+  const res = lowestEigenpairs(matrix, job.k, { tol: Math.min(REFINE_TOL, job.tol), seed: 1, signal, method: job.method });
   return res.values[pair[1]] - res.values[pair[0]];
 }

@@ -10,6 +10,7 @@ import {
   elapsedMs,
   gridReport,
   prepareTask,
+  taskMethod,
   progressReporter,
   runtimeFacts,
   TASK_DEFAULT_TOL,
@@ -86,7 +87,7 @@ export async function runFluxSweep(spec: FluxSweepSpec, ctx: TaskRunContext = {}
     const matrix = buildHamiltonian(lattice, swept);
     let initial = prev;
     if (initial && matrix.im && !initial.im) initial = { ...initial, im: new Float64Array(initial.re.length) };
-    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal });
+    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal, method: taskMethod(ctx, lattice.n) });
     iterations += res.iterations;
     if (!res.converged) unconverged++;
     for (let l = 0; l < k; l++) maxResidual = Math.max(maxResidual, res.residualNorms[l] / Math.max(1, Math.abs(res.values[l])));

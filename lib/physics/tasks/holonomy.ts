@@ -13,6 +13,7 @@ import {
   elapsedMs,
   gridReport,
   prepareTask,
+  taskMethod,
   principalArg,
   progressReporter,
   runtimeFacts,
@@ -113,7 +114,7 @@ export async function runHolonomy(spec: HolonomySpec, ctx: TaskRunContext = {}):
     let initial: StateBlock | null = null;
     if (prev) initial = applyGaugeMap(gaugeMapForStep(lattice, { from: path.plaquettes[s - 1], to: [a, b] }, alpha), prev);
     const matrix = buildHamiltonian(lattice, tubesWithMoving(job, a, b));
-    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal });
+    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal, method: taskMethod(ctx, lattice.n) });
     iterations += res.iterations;
     if (!res.converged) unconverged++;
     for (let l = 0; l < k; l++) maxResidual = Math.max(maxResidual, res.residualNorms[l] / Math.max(1, Math.abs(res.values[l])));

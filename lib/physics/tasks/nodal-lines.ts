@@ -5,7 +5,7 @@ import { SpecError } from '../errors';
 import { buildHamiltonian, isRealFlux } from '../hamiltonian';
 import { type NodalLine, nodalLines } from '../marching-squares';
 import { NODAL_LINES_NEED_REAL, type NodalLinesSpec } from '../spec/nodal-lines';
-import { elapsedMs, gridReport, prepareTask, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, tubeReport } from './task-support';
+import { elapsedMs, gridReport, prepareTask, taskMethod, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, tubeReport } from './task-support';
 
 /** Result of the nodal-lines task. */
 export interface NodalLinesResult {
@@ -50,7 +50,7 @@ export async function runNodalLines(spec: NodalLinesSpec, ctx: TaskRunContext = 
   if (spec.level >= lattice.n) throw new SpecError(`level ${spec.level} does not exist: the grid has only ${lattice.n} unknowns`, 'level');
   const k = Math.min(spec.level + 2, lattice.n);
   const matrix = buildHamiltonian(lattice, tubes);
-  const res = lowestEigenpairs(matrix, k, { tol: spec.tol ?? TASK_DEFAULT_TOL, seed: 1, signal: ctx.signal });
+  const res = lowestEigenpairs(matrix, k, { tol: spec.tol ?? TASK_DEFAULT_TOL, seed: 1, signal: ctx.signal, method: taskMethod(ctx, lattice.n) });
   report(0.9);
   const { n } = lattice;
   const psi = res.vectors.re.slice(spec.level * n, (spec.level + 1) * n);

@@ -17,6 +17,7 @@ import {
   elapsedMs,
   gridReport,
   prepareTask,
+  taskMethod,
   progressReporter,
   runtimeFacts,
   type ScanTuning,
@@ -126,7 +127,7 @@ export function walkPolyline(points: readonly Vec2[], closed: boolean, grid: { h
  * const r = await runPositionSweep(spec);
  * r.mode === 'region' && r.force.fx.length === r.xs.length * r.ys.length; // true
  */
-export async function runPositionSweep(spec: PositionSweepSpec, ctx: TaskRunContext & ScanTuning = {}): Promise<PositionSweepResult> {
+export async function runPositionSweep(spec: PositionSweepSpec, ctx: TaskRunContext = {}): Promise<PositionSweepResult> {
   if (spec.path) return runPath(spec, spec.path, ctx);
   return runRegion(spec, spec.region!, ctx);
 }
@@ -163,7 +164,7 @@ async function runPath(spec: PositionSweepSpec, path: NonNullable<PositionSweepS
     }
     const matrix = buildHamiltonian(lattice, tubesWithMoving(job, a, b));
     if (initial && matrix.im && !initial.im) initial = { ...initial, im: new Float64Array(initial.re.length) };
-    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal });
+    const res = lowestEigenpairs(matrix, k, { tol, initial, seed: 1, signal: ctx.signal, method: taskMethod(ctx, lattice.n) });
     iterations += res.iterations;
     if (!res.converged) unconverged++;
     for (let l = 0; l < k; l++) maxResidual = Math.max(maxResidual, res.residualNorms[l] / Math.max(1, Math.abs(res.values[l])));
@@ -200,7 +201,7 @@ async function runPath(spec: PositionSweepSpec, path: NonNullable<PositionSweepS
 async function runRegion(
   spec: PositionSweepSpec,
   region: NonNullable<PositionSweepSpec['region']>,
-  ctx: TaskRunContext & ScanTuning,
+  ctx: TaskRunContext,
 ): Promise<RegionSweepResult> {
   const start = performance.now();
   const h = spec.grid.h;
@@ -231,6 +232,7 @@ async function runRegion(
     tol: spec.tol ?? TASK_DEFAULT_TOL,
     seed: 1,
     warmStart: ctx.warmStart ?? true,
+    method: taskMethod(ctx, lattice.n),
   };
   const total = na * nb;
   const report = progressReporter(ctx, 'scanning tube positions');

@@ -12,7 +12,7 @@ const INPUT =
 /** The error message at a field path (or one of its children's first message). */
 export function useFieldError(name: string): string | undefined {
   const { formState } = useFormContext();
-  const error = get(formState.errors, name);
+  const error = get(formState.errors, name) as { message?: unknown } | undefined;
   if (!error) return undefined;
   if (typeof error.message === 'string' && error.message) return error.message;
   if (typeof error === 'object') {

@@ -1,0 +1,85 @@
+// The database itself refuses to change or remove a frozen snapshot: UPDATE, DELETE and TRUNCATE fail.
+// Rows are inserted inside a transaction that is rolled back; each refused statement runs in its own savepoint.
+import { eq, sql, TransactionRollbackError } from 'drizzle-orm';
+import { describe, expect, it } from 'vitest';
+import { figures, manuscripts, results, snapshots, users } from '@/db/schema';
+import { testDb, uniqueTag } from '../helpers/db';
+
+/** The PostgreSQL error under Drizzle's wrapper (DrizzleQueryError keeps it as `cause`). */
+function pgError(error: unknown): { code?: string; message: string } {
+  let e = error as { cause?: unknown; code?: string; message: string };
+  while (e && !e.code && e.cause) e = e.cause as typeof e;
+  return e;
+}
+
+type Tx = Parameters<Parameters<typeof testDb.transaction>[0]>[0];
+
+async function refused(tx: Tx, statement: (sp: Tx) => Promise<unknown>): Promise<{ code?: string; message: string }> {
+  try {
+    await tx.transaction(async (sp) => {
+      await statement(sp);
+    });
+  } catch (error) {
+    return pgError(error);
+  }
+  throw new Error('the statement was not refused');
+}
+
+describe('snapshot immutability (database trigger)', () => {
+  it('refuses UPDATE, DELETE and TRUNCATE of a snapshot', async () => {
+    const tag = uniqueTag();
+    const outcome = testDb.transaction(async (tx) => {
+      const [user] = await tx.insert(users).values({ email: `freezer.${tag}@tests.fluxfolio.example.org` }).returning();
+      const [manuscript] = await tx
+        .insert(manuscripts)
+        .values({ title: `Immutable ${tag}`, slug: `immutable-${tag}`, createdById: user.id })
+        .returning();
+      const [figure] = await tx
+        .insert(figures)
+        .values({ manuscriptId: manuscript.id, label: `fig-${tag}`, kind: 'spectrum', params: { levels: 4 } })
+        .returning();
+      const [result] = await tx
+        .insert(results)
+        .values({
+          inputHash: `input-${tag}`,
+          solverVersion: 'test',
+          params: { levels: 4 },
+          data: { energies: [1, 2, 3, 4] },
+          diagnostics: {},
+          resultHash: `result-${tag}`,
+        })
+        .returning();
+      const [snapshot] = await tx
+        .insert(snapshots)
+        .values({
+          figureId: figure.id,
+          manuscriptId: manuscript.id,
+          version: 1,
+          kind: figure.kind,
+          label: figure.label,
+          caption: 'frozen',
+          params: figure.params,
+          solverVersion: 'test',
+          resultId: result.id,
+          resultHash: result.resultHash,
+          frozenById: user.id,
+        })
+        .returning();
+
+      const update = await refused(tx, (sp) => sp.update(snapshots).set({ caption: 'changed' }).where(eq(snapshots.id, snapshot.id)));
+      expect(update.message).toMatch(/snapshots are immutable \(UPDATE refused/);
+      expect(update.code).toBe('23000');
+
+      const remove = await refused(tx, (sp) => sp.delete(snapshots).where(eq(snapshots.id, snapshot.id)));
+      expect(remove.message).toMatch(/snapshots are immutable \(DELETE refused/);
+
+      const truncate = await refused(tx, (sp) => sp.execute(sql`TRUNCATE snapshots CASCADE`));
+      expect(truncate.message).toMatch(/snapshots are immutable/);
+
+      const [still] = await tx.select().from(snapshots).where(eq(snapshots.id, snapshot.id));
+      expect(still.caption).toBe('frozen');
+      tx.rollback();
+    });
+    await expect(outcome).rejects.toBeInstanceOf(TransactionRollbackError);
+  });
+});

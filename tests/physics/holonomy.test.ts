@@ -1,0 +1,84 @@
+// Loop phases of a tube carried around loops in and around the unit disk (PHYSICS.md section 3): half tube signs
+// (Longuet-Higgins 1975; Berry 1984), the phase -2 pi alpha of a charge enclosed by a counter-clockwise loop at a generic
+// flux (Berry 1984), its conjugate clockwise, and |W| = 1 for loops that stay outside the well.
+import { describe, expect, it } from 'vitest';
+import { SpecError } from '@/lib/physics/errors';
+import { parseTaskSpec } from '@/lib/physics/spec';
+import type { HolonomySpec } from '@/lib/physics/spec/holonomy';
+import { runHolonomy } from '@/lib/physics/tasks/holonomy';
+
+const disk = { disk: { center: [0, 0], radius: 1 } };
+
+function spec(extra: Record<string, unknown>): HolonomySpec {
+  return parseTaskSpec({ task: 'holonomy', well: disk, grid: { h: 1 / 16 }, moving: { alpha: 0.5 }, ...extra }) as HolonomySpec;
+}
+
+/** Reduce to (-pi, pi]. */
+function reduce(phase: number): number {
+  let p = phase % (2 * Math.PI);
+  if (p <= -Math.PI) p += 2 * Math.PI;
+  if (p > Math.PI) p -= 2 * Math.PI;
+  return p;
+}
+
+describe('holonomy of the unit disk with a moving half tube (Longuet-Higgins 1975; Berry 1984)', () => {
+  it('gives -1 for a loop enclosing the whole disk', async () => {
+    const r = await runHolonomy(spec({ loop: { circle: { center: [0, 0], radius: 1.3 } } }));
+    expect(r.sign).toBe(-1);
+    expect(r.phase).toBe(Math.PI);
+    expect(r.residual!).toBeLessThan(1e-9);
+    expect(Math.abs(r.modulus - 1)).toBeLessThan(1e-9);
+    expect(r.orientation).toBe('ccw');
+    expect(r.steps).toBe(r.path.length);
+  });
+
+  it('gives +1 with |W| ~ 1 for a far loop away from the disk', async () => {
+    const r = await runHolonomy(spec({ loop: { circle: { center: [2.5, 0.5], radius: 0.6 } } }));
+    expect(r.sign).toBe(1);
+    expect(r.phase).toBe(0);
+    expect(Math.abs(r.modulus - 1)).toBeLessThan(1e-9);
+  });
+
+  it('gives -1 for inside loops exactly when they enclose the centre', async () => {
+    const around = await runHolonomy(spec({ loop: { circle: { center: [0.1, -0.05], radius: 0.4 } } }));
+    expect(around.sign).toBe(-1);
+    const beside = await runHolonomy(spec({ loop: { circle: { center: [0.45, 0.1], radius: 0.3 } } }));
+    expect(beside.sign).toBe(1);
+    const polygon = await runHolonomy(spec({ loop: { polygon: [[-0.6, -0.2], [0.3, -0.5], [0.5, 0.4], [-0.3, 0.5]] } }));
+    expect(polygon.sign).toBe(-1);
+    expect(polygon.residual!).toBeLessThan(1e-9);
+  });
+});
+
+describe('holonomy at a generic flux (Berry 1984: phase of a charge carried around a flux line)', () => {
+  it('counter-clockwise loop enclosing the disk: phase -2 pi alpha, modulus 1; clockwise: the conjugate', async () => {
+    const alpha = 0.3;
+    const ccw = await runHolonomy(spec({ moving: { alpha }, loop: { circle: { center: [0, 0], radius: 1.25 } } }));
+    expect(ccw.sign).toBeUndefined();
+    expect(ccw.phase).toBeCloseTo(reduce(-2 * Math.PI * alpha), 8);
+    expect(Math.abs(ccw.modulus - 1)).toBeLessThan(1e-9);
+    const cw = await runHolonomy(spec({ moving: { alpha }, orientation: 'cw', loop: { circle: { center: [0, 0], radius: 1.25 } } }));
+    expect(cw.orientation).toBe('cw');
+    expect(cw.phase).toBeCloseTo(-ccw.phase, 8);
+    expect(cw.holonomy.im).toBeCloseTo(-ccw.holonomy.im, 8);
+  });
+
+  it('a loop outside the well gives 1 with |W| = 1 to ~1e-12', async () => {
+    const r = await runHolonomy(spec({ moving: { alpha: 0.3 }, loop: { polygon: [[1.4, -0.5], [2.2, -0.5], [2.2, 0.6], [1.4, 0.6]] } }));
+    expect(Math.abs(r.holonomy.re - 1)).toBeLessThan(1e-10);
+    expect(Math.abs(r.phase)).toBeLessThan(1e-10);
+    expect(Math.abs(r.modulus - 1)).toBeLessThan(1e-10);
+  });
+
+  it('an enclosed fixed half tube adds pi to the phase of a far loop', async () => {
+    const r = await runHolonomy(
+      spec({ moving: { alpha: 0.3 }, tubes: [{ at: [0.2, 0.1], alpha: 0.5 }], loop: { circle: { center: [0, 0], radius: 1.25 } } }),
+    );
+    // The moving tube encloses the charge (-2 pi 0.3); the fixed tube's flux is not seen by the moving tube's own phase.
+    expect(r.phase).toBeCloseTo(reduce(-2 * Math.PI * 0.3), 8);
+  });
+
+  it('refuses a loop that encloses no grid site', async () => {
+    await expect(runHolonomy(spec({ loop: { circle: { center: [0, 0], radius: 0.02 } } }))).rejects.toBeInstanceOf(SpecError);
+  });
+});
