@@ -115,8 +115,16 @@ export async function seedDemo(db: Db, { force = false, notes = true } = {}): Pr
   const people = await seedPeople(db);
   const manuscript = await seedManuscript(db, people);
   if (!notes) return { seeded: true, people, manuscript };
-  const counts = await seedNotes(db, manuscript, people);
-  return { seeded: true, people, manuscript, ...counts };
+  try {
+    const counts = await seedNotes(db, manuscript, people);
+    return { seeded: true, people, manuscript, ...counts };
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new Error(
+      `demo figure notes failed: ${reason}\n(people and manuscript are seeded; after fixing, add the notes with \`npm run db:seed -- --force\`)`,
+      { cause: error },
+    );
+  }
 }
 
 const OPTIONS = ['--force', '--no-notes'];
@@ -148,7 +156,8 @@ if (process.argv[1] && import.meta.url === pathToFileURL(path.resolve(process.ar
   main(process.argv.slice(2)).then(
     (code) => process.exit(code),
     (error: unknown) => {
-      console.error(`[seed] failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+      console.error(`[seed] failed: ${error instanceof Error ? error.message : String(error)}`);
+      if (error instanceof Error && error.cause instanceof Error && error.cause.stack) console.error(error.cause.stack);
       process.exit(1);
     },
   );

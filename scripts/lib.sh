@@ -124,15 +124,22 @@ stop_services() {
 # ---------------------------------------------------------------------------------------------------------------
 
 PG_STARTED_HERE=0
-# Start the local server unless one already answers; remember whether THIS run started it.
+PG_SERVER_IS_OTHER=0
+# Start the local server unless one already answers; remember whether THIS run started it and whether the server
+# on the port belongs to another clone (then callers pick a database name of their own).
 start_local_postgres() {
-  local marker
+  local marker state
   marker="$(mktemp)"
   FLUXFOLIO_PG_MARKER="$marker" bash "$ROOT/scripts/pg.sh" start || { rm -f "$marker"; die "PostgreSQL did not start"; }
-  [ "$(cat "$marker")" = started ] && PG_STARTED_HERE=1
+  state="$(cat "$marker")"
   rm -f "$marker"
+  [ "$state" = started ] && PG_STARTED_HERE=1
+  [ "$state" = other ] && PG_SERVER_IS_OTHER=1
   return 0
 }
+
+# A short stable id of this clone's path (for per-clone names on a shared server).
+clone_id() { printf '%s' "$ROOT" | sha256sum | cut -c1-8; }
 
 CLEANED_UP=0
 cleanup() {

@@ -87,7 +87,7 @@ cmd_start() {
   fi
   if port_answers; then
     log "a PostgreSQL server (another clone's or a system one) already answers on $PG_HOST:$PG_PORT: using it"
-    write_marker reused; return 0
+    write_marker other; return 0
   fi
   mkdir -p "$PG_DATA"
   if is_root; then chown "$PG_SUPERUSER:" "$PG_DATA"; fi
@@ -158,7 +158,7 @@ usage() {
   cat >&2 <<USAGE
 usage: scripts/pg.sh start|stop|status|url [NAME]|ensure-db NAME|drop-db NAME
   PGPORT (default 54329), PGDATA (default .data/pg, or /var/tmp/fluxfolio-pg-<hash> when the postgres user cannot reach the project),
-  FLUXFOLIO_PG_FAST=1 (fsync off: tests only), FLUXFOLIO_PG_MARKER=FILE (start writes 'started' or 'reused' there)
+  FLUXFOLIO_PG_FAST=1 (fsync off: tests only), FLUXFOLIO_PG_MARKER=FILE (start writes there: 'started', 'reused' (ours, already up) or 'other' (another server))
 USAGE
   exit 2
 }

@@ -6,6 +6,7 @@ source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 install_cleanup_trap
 
 HOST=127.0.0.1
+TEST_DATABASE_NAME_GIVEN="${TEST_DATABASE_NAME:-}"
 TEST_DATABASE_NAME="${TEST_DATABASE_NAME:-fluxfolio_test}"
 APP_PORT="${TEST_APP_PORT:-3100}"
 SMTP_PORT="${TEST_SMTP_PORT:-2526}"
@@ -18,7 +19,7 @@ ensure_node_modules
 require_free_port "$HOST" "$APP_PORT" "the test web server" TEST_APP_PORT
 require_free_port "$HOST" "$SMTP_PORT" "the test fake SMTP server" TEST_SMTP_PORT
 
-step "PostgreSQL: test database $TEST_DATABASE_NAME"
+step "PostgreSQL for the tests"
 if [ -n "${TEST_DATABASE_URL:-}" ]; then
   info "TEST_DATABASE_URL is set: using it"
   DATABASE_URL="$TEST_DATABASE_URL"
@@ -28,9 +29,15 @@ elif [ -n "${DATABASE_URL:-}" ]; then
     "$DATABASE_URL" "$TEST_DATABASE_NAME")"
 else
   start_local_postgres
+  if [ "$PG_SERVER_IS_OTHER" -eq 1 ] && [ -z "$TEST_DATABASE_NAME_GIVEN" ]; then
+    # Another clone's server: use a database of our own so that two clones never drop each other's test data.
+    TEST_DATABASE_NAME="fluxfolio_test_$(clone_id)"
+    info "the server belongs to another clone: using the database $TEST_DATABASE_NAME"
+  fi
   DATABASE_URL="$(bash scripts/pg.sh url "$TEST_DATABASE_NAME")"
 fi
 export DATABASE_URL TEST_DATABASE_NAME
+info "test database: $TEST_DATABASE_NAME (dropped, recreated and migrated)"
 "$BIN/tsx" db/migrate.ts --recreate
 
 step "Chromium for the browser tests"

@@ -1,11 +1,11 @@
 // Shown while the dashboard's server part loads.
-import { ManuscriptList } from './manuscript-list';
+import { ManuscriptListSkeleton } from './manuscript-list-skeleton';
 
 export default function DashboardLoading() {
   return (
     <div className="space-y-10">
       <div className="h-14 w-64 animate-pulse rounded-lg bg-slate-200/70" />
-      <ManuscriptList.Skeleton />
+      <ManuscriptListSkeleton />
     </div>
   );
 }

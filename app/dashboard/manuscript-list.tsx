@@ -4,11 +4,13 @@
 import Link from 'next/link';
 import type { MemberRole } from '@/db/schema';
 import { useManuscripts } from '@/hooks/use-manuscripts';
+import type { ManuscriptListItemJson } from '@/lib/api-types';
 import { ArchivedBadge, RoleBadge, StatusBadge } from '../_components/badges';
 import { ButtonLink } from '../_components/button';
 import { EmptyState } from '../_components/empty-state';
 import { FormAlert } from '../_components/form-alert';
 import { RelativeTime } from '../_components/relative-time';
+import { ManuscriptListSkeleton } from './manuscript-list-skeleton';
 
 const WHAT_I_CAN_DO: Record<MemberRole, string> = {
   owner: 'You manage members and can edit, run, archive or delete.',
@@ -20,7 +22,7 @@ export function ManuscriptList({ scope }: { scope: 'mine' | 'all' }) {
   const { manuscripts, error, isLoading } = useManuscripts(scope);
 
   if (error) return <FormAlert>{error.message}</FormAlert>;
-  if (isLoading || !manuscripts) return <ManuscriptList.Skeleton />;
+  if (isLoading || !manuscripts) return <ManuscriptListSkeleton />;
   if (manuscripts.length === 0) {
     return scope === 'mine' ? (
       <EmptyState
@@ -34,6 +36,8 @@ export function ManuscriptList({ scope }: { scope: 'mine' | 'all' }) {
     );
   }
 
+  if (scope === 'all') return <SiteManuscriptTable manuscripts={manuscripts} />;
+
   return (
     <ul className="grid gap-4 md:grid-cols-2" data-testid={`manuscripts-${scope}`}>
       {manuscripts.map((item) => (
@@ -45,18 +49,14 @@ export function ManuscriptList({ scope }: { scope: 'mine' | 'all' }) {
           >
             <div className="flex items-start justify-between gap-3">
               <h3 className="font-semibold text-slate-900 group-hover:text-flux-800">{item.title}</h3>
-              {item.role ? (
-                <RoleBadge role={item.role} />
-              ) : (
-                <span className="text-xs whitespace-nowrap text-slate-500">not a member</span>
-              )}
+              {item.role && <RoleBadge role={item.role} />}
             </div>
             <div className="mt-2 flex flex-wrap items-center gap-2">
               <StatusBadge status={item.status} />
               {item.archivedAt && <ArchivedBadge />}
             </div>
             <p className="mt-3 text-sm text-slate-600">
-              {item.role ? WHAT_I_CAN_DO[item.role] : 'You can read it, and act as owner, as a site admin.'}
+              {item.role ? WHAT_I_CAN_DO[item.role] : null}
             </p>
             <p className="mt-3 text-xs text-slate-500">
               {item.memberCount} {item.memberCount === 1 ? 'member' : 'members'} · updated <RelativeTime iso={item.updatedAt} />
@@ -68,16 +68,30 @@ export function ManuscriptList({ scope }: { scope: 'mine' | 'all' }) {
   );
 }
 
-ManuscriptList.Skeleton = function ManuscriptListSkeleton() {
+/** Site admins' compact list of every manuscript: one row each, so that a long list stays scannable. */
+function SiteManuscriptTable({ manuscripts }: { manuscripts: ManuscriptListItemJson[] }) {
   return (
-    <ul className="grid gap-4 md:grid-cols-2" aria-busy="true" aria-label="Loading manuscripts">
-      {[0, 1].map((index) => (
-        <li key={index} className="h-36 animate-pulse rounded-xl bg-white p-5 ring-1 ring-slate-200">
-          <div className="h-4 w-2/3 rounded bg-slate-200" />
-          <div className="mt-3 h-3 w-1/4 rounded bg-slate-100" />
-          <div className="mt-5 h-3 w-5/6 rounded bg-slate-100" />
-        </li>
-      ))}
-    </ul>
+    <div className="overflow-hidden rounded-xl bg-white shadow-sm ring-1 ring-slate-200">
+      <ul className="divide-y divide-slate-100" data-testid="manuscripts-all">
+        {manuscripts.map((item) => (
+          <li key={item.id}>
+            <Link
+              href={`/m/${item.slug}`}
+              className="flex flex-wrap items-center gap-x-4 gap-y-1 px-4 py-3 hover:bg-slate-50 focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-flux-600 sm:flex-nowrap"
+            >
+              <span className="min-w-0 flex-1 truncate text-sm font-medium text-slate-900">{item.title}</span>
+              <span className="flex shrink-0 items-center gap-2">
+                <StatusBadge status={item.status} />
+                {item.archivedAt && <ArchivedBadge />}
+                {item.role && <RoleBadge role={item.role} />}
+              </span>
+              <span className="w-40 shrink-0 text-xs text-slate-500 sm:text-right">
+                {item.memberCount} {item.memberCount === 1 ? 'member' : 'members'} · <RelativeTime iso={item.updatedAt} />
+              </span>
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </div>
   );
-};
+}

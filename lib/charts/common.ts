@@ -17,8 +17,6 @@ export const OKABE_ITO = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00',
 /** Perceptually uniform sequential schemes readable with colour-vision deficiencies (Nuñez et al., PLoS ONE 13, e0199239 (2018)). */
 export const SEQUENTIAL_SCHEME = 'viridis';
 export const GAP_SCHEME = 'cividis';
-/** Diverging blue/orange for signed fields (blue negative, orange positive; colour-blind safe, common practice). */
-export const DIVERGING_SCHEME = 'blueorange';
 
 /** Sign maps: orange for psi > 0, sky blue for psi < 0 (Okabe–Ito pair; black nodal lines stay visible on both). */
 export const SIGN_COLOURS = { positive: '#E69F00', negative: '#56B4E9' } as const;

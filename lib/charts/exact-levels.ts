@@ -230,6 +230,18 @@ export function diskLevels(alpha: number, radius: number, count: number): ExactL
 }
 
 /**
+ * One exact disk level followed in flux: E_{m,n}(alpha) = j_{|m - alpha|, n}^2 / R^2 (a smooth curve; curves of different m
+ * cross, as the lattice's tracked levels do).
+ *
+ * @example diskLevelEnergy(0, 1, 0, 1) // returns j01² = 5.783185962946784 (DLMF §10.21)
+ */
+export function diskLevelEnergy(m: number, n: number, alpha: number, radius: number): number {
+  const zeros = besselJZeros(Math.abs(m - alpha), n);
+  const j = zeros[n - 1];
+  return (j * j) / (radius * radius);
+}
+
+/**
  * Lowest levels of an a x b rectangle with hard walls: E = pi^2 (n^2/a^2 + m^2/b^2), n, m >= 1, units ħ²/(2mL²).
  *
  * @example rectangleLevels(1, 1, 3).map((l) => l.energy) // returns [2 pi², 5 pi², 5 pi²]

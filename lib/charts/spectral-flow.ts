@@ -1,11 +1,11 @@
 // Spectral flow chart: levels versus the flux alpha of one tube, one line per tracked level (Okabe–Ito colours), with the
 // exact levels of a disk with the swept tube at its centre (Bessel zeros) drawn dashed over them when they exist.
 import { energyAxisTitle, energyScale, FLUX_AXIS_TITLE } from '@/lib/units';
-import { diskLevels, exactCaseFor } from './exact-levels';
+import { diskLevelEnergy, diskLevels, exactCaseFor } from './exact-levels';
 import { baseSpec, type ChartOptions, type ChartSpec, tidy, unitsOf } from './common';
 import { asRecord, ChartDataError, curvesOver, isRecord, numberList, numberMatrix, pick, point, type Json } from './read-result';
 
-/** At most this many flux values are used for the exact overlay (it is smooth; Bessel zeros cost ~1 ms per flux). */
+/** At most this many flux values are used for the exact overlay (the curves are smooth; each point costs a Bessel root search). */
 const EXACT_SAMPLES = 81;
 
 interface SweepParams {
@@ -16,7 +16,7 @@ interface SweepParams {
 }
 
 /** The exact overlay for a sweep, or null: the well must be a disk and the swept tube sit at its centre (see exactCaseFor). */
-function exactCurves(params: unknown, result: Json, alphas: number[], levelCount: number): number[][] | null {
+function exactCurves(params: unknown, result: Json, alphas: number[], levelCount: number): { label: string; points: { alpha: number; E: number }[] }[] | null {
   if (!isRecord(params) || !isRecord(params.well)) return null;
   const p = params as unknown as SweepParams;
   const swept = typeof result.tube === 'number' ? result.tube : (p.sweep?.tube ?? 0);
@@ -31,12 +31,16 @@ function exactCurves(params: unknown, result: Json, alphas: number[], levelCount
   const picked: number[] = [];
   for (let i = 0; i < alphas.length; i += stride) picked.push(i);
   if (picked[picked.length - 1] !== alphas.length - 1) picked.push(alphas.length - 1);
-  const curves: number[][] = Array.from({ length: levelCount }, () => new Array(alphas.length).fill(Number.NaN));
+  // Every (m, n) that is among the lowest levels somewhere in the sweep, followed over the whole sweep.
+  const pairs = new Map<string, { m: number; n: number }>();
   for (const i of picked) {
-    const levels = diskLevels(base.alpha + alphas[i], base.radius, levelCount);
-    levels.forEach((l, k) => (curves[k][i] = l.energy));
+    for (const l of diskLevels(base.alpha + alphas[i], base.radius, levelCount)) pairs.set(`${l.quantum.m},${l.quantum.n}`, { m: l.quantum.m, n: l.quantum.n });
   }
-  return curves;
+  const sortedPairs = Array.from(pairs.values()).sort((a, b) => a.n - b.n || a.m - b.m);
+  return sortedPairs.map(({ m, n }) => ({
+    label: `m = ${m}, n = ${n}`,
+    points: picked.map((i) => ({ alpha: alphas[i], E: diskLevelEnergy(m, n, base.alpha + alphas[i], base.radius) })),
+  }));
 }
 
 /**
@@ -62,11 +66,9 @@ export function spectralFlowSpec(result: unknown, options: ChartOptions = {}): C
   );
   const exact = exactCurves(options.params, r, alphas, curves.length);
   if (exact) {
-    exact.forEach((curve, level) =>
-      curve.forEach((e, i) => {
-        if (Number.isFinite(e)) values.push({ alpha: alphas[i], E: tidy(e * scale), level, source: 'exact (Bessel zeros)' });
-      }),
-    );
+    for (const curve of exact) {
+      for (const p of curve.points) values.push({ alpha: p.alpha, E: tidy(p.E * scale), level: curve.label, source: 'exact (Bessel zeros)' });
+    }
   }
   const sources = exact ? ['lattice', 'exact (Bessel zeros)'] : ['lattice'];
   return baseSpec(options, {

@@ -113,7 +113,7 @@ export function snapshotBibtex(input: SnapshotCitationInput): string {
   const frozen = isoDate(snapshot.frozenAt);
   const fields: [string, string][] = [];
   if (manuscript.authors.length > 0) fields.push(['author', manuscript.authors.map(latexEscape).join(' and ')]);
-  fields.push(['title', `{Figure ${latexEscape(figure.label)}, snapshot v${snapshot.version}, of ``${latexEscape(manuscript.title)}''}`]);
+  fields.push(['title', `{Figure ${latexEscape(figure.label)}, snapshot v${snapshot.version}, of \`\`${latexEscape(manuscript.title)}''}`]);
   fields.push(['year', frozen.slice(0, 4)]);
   fields.push(['month', String(Number(frozen.slice(5, 7)))]);
   fields.push(['howpublished', `\\url{${url.replace(/[{}\\]/g, '')}}`]);

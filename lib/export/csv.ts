@@ -112,8 +112,8 @@ function matrixTable(name: string, key: string, matrix: ArrayLike<number>[]): Cs
  * @param result - a solver result (plain JSON, typed arrays allowed)
  * @returns tables in a deterministic order (keys sorted)
  * @example
- * resultCsvTables({ alphas: [0, 0.5], levels: [[1, 2], [3, 4]] }).map((t) => t.name)
- * // returns ['summary', 'alphas', 'levels']  (a table per group)
+ * resultCsvTables({ task: 'flux-sweep', alphas: [0, 0.5], tracked: [[1, 2], [3, 4]] }).map((t) => t.name)
+ * // returns ['summary', 'tracked', 'data']
  */
 export function resultCsvTables(result: unknown): CsvTable[] {
   const tables: CsvTable[] = [];

@@ -27,6 +27,17 @@ const FONT_NAMES = {
 } as const;
 
 /**
+ * PDFKit refuses dash patterns with a zero length, which SVG allows ("1,0" is a solid line, as Vega writes for solid
+ * legend symbols). Such patterns draw solid, so the attribute is dropped.
+ */
+export function solidifyZeroDashes(svg: string): string {
+  return svg.replace(/\sstroke-dasharray="([^"]*)"/g, (attr, value: string) => {
+    const parts = value.split(/[\s,]+/).filter(Boolean).map(Number);
+    return parts.length === 0 || parts.some((p) => !(p > 0)) ? '' : attr;
+  });
+}
+
+/**
  * Draw an SVG string on a PDF page of the given size in points and return the PDF bytes.
  *
  * @param svg - SVG document (CSS px units; scaled to fit the page)
@@ -50,7 +61,7 @@ export function svgToPdf(svg: string, size: { width: number; height: number }, m
     doc.registerFont(FONT_NAMES.italic, dejavuFontPath('italic'));
     doc.registerFont(FONT_NAMES.boldItalic, dejavuFontPath('boldItalic'));
     try {
-      SVGtoPDF(doc, svg, 0, 0, {
+      SVGtoPDF(doc, solidifyZeroDashes(svg), 0, 0, {
         width: size.width,
         height: size.height,
         preserveAspectRatio: 'xMidYMid meet',

@@ -182,7 +182,14 @@ export async function executeRun(runId: string, options: RunJobOptions = {}): Pr
       if (writing) await writing;
     }
 
-    const stored = toStoredForm(result);
+    let stored;
+    try {
+      stored = toStoredForm(result);
+    } catch (error) {
+      const message = `Solver error: the result cannot be stored (${messageOf(error)})`;
+      await failRun({ id: runId, error: message, database });
+      return { status: 'failed', runId, error: message };
+    }
     const { run: finished, result: row } = await finishRunWithResult({
       runId,
       result: { inputHash: key, solverVersion: SOLVER_VERSION, params: spec, ...stored },

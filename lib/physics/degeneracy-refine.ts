@@ -292,7 +292,8 @@ export interface GapFit {
 }
 
 /**
- * Fits gap^2 = c0 + c1 x + c2 y + c3 x^2 + c4 x y + c5 y^2 by least squares and returns its vertex. Near a conical
+ * Fits gap^2 = c0 + c1 x + c2 y + c3 x^2 + c4 x y + c5 y^2 by (by default relatively weighted) least squares and
+ * returns its vertex. Near a conical
  * degeneracy gap^2, not the gap, is smooth in the tube position (Herzberg & Longuet-Higgins 1963; PHYSICS.md section 4).
  *
  * @param samples - at least 6 positions with their gaps
@@ -301,7 +302,11 @@ export interface GapFit {
  * @example
  * fitGapSquaredVertex(samples, { min: [-0.1, -0.1], max: [0.1, 0.1] }).at; // near the true crossing
  */
-export function fitGapSquaredVertex(samples: readonly GapSample[], bounds: { min: Vec2; max: Vec2 }): GapFit {
+export function fitGapSquaredVertex(
+  samples: readonly GapSample[],
+  bounds: { min: Vec2; max: Vec2 },
+  options: { weighting?: 'uniform' | 'near' } = {},
+): GapFit {
   let best = samples[0];
   for (const s of samples) if (s.gap < best.gap) best = s;
   const fallback: GapFit = { at: [best.at[0], best.at[1]], gap2: best.gap * best.gap, ok: false };
@@ -312,13 +317,19 @@ export function fitGapSquaredVertex(samples: readonly GapSample[], bounds: { min
   let scale = 0;
   for (const s of samples) scale = Math.max(scale, Math.abs(s.at[0] - cx), Math.abs(s.at[1] - cy));
   if (scale === 0) return fallback;
+  // 'near' weights each equation by 1 / gap^2 (relative error of gap^2), so the samples closest to the cone's tip,
+  // where the quadratic form is exact, dominate over the window's far samples.
+  let g2max = 0;
+  for (const s of samples) g2max = Math.max(g2max, s.gap * s.gap);
+  const weight = (s: GapSample) => (options.weighting === 'uniform' ? 1 : 1 / Math.sqrt(s.gap ** 4 + 1e-12 * g2max * g2max));
   const rows = samples.map((s) => {
     const x = (s.at[0] - cx) / scale;
     const y = (s.at[1] - cy) / scale;
-    return [1, x, y, x * x, x * y, y * y];
+    const w = weight(s);
+    return [w, w * x, w * y, w * x * x, w * x * y, w * y * y];
   });
   const a = new Matrix(rows);
-  const g2 = Matrix.columnVector(samples.map((s) => s.gap * s.gap));
+  const g2 = Matrix.columnVector(samples.map((s) => weight(s) * s.gap * s.gap));
   let c: number[];
   try {
     const at = a.transpose();

@@ -7,7 +7,7 @@ export const DEFAULT_MAX_UNKNOWNS = 250_000;
 /** Default cap on unknowns x configurations for sweeps and scans (override with env FLUXFOLIO_MAX_WORK). */
 export const DEFAULT_MAX_WORK = 400_000_000;
 /** The lattice box may hold at most this many times the unknown cap (the box is mostly wall for thin wells). */
-const BOX_FACTOR = 16;
+const BOX_FACTOR = 64;
 
 function envInt(name: string, fallback: number): number {
   const raw = typeof process !== 'undefined' ? process.env[name] : undefined;
@@ -58,7 +58,7 @@ export interface BudgetRequest {
   h: number;
   /** Number of configurations (sweep steps, scan positions); default 1. */
   configurations?: number;
-  /** Box sites (nx * ny), checked before the well is rasterised. */
+  /** Box sites (nx * ny), checked before the well is rasterised (unknowns may then be an estimate). */
   boxSites?: number;
 }
 

@@ -4,10 +4,18 @@ import { buildHamiltonian } from './hamiltonian';
 import { buildLattice, snapTube } from './lattice';
 import { checkBudget } from './limits';
 import { compilePotential } from './potential';
-import type { BaseProblemInput } from './spec/common';
+import type { GridSpec, TubeSpec, WellSpec } from './spec/common';
 import type { CsrMatrix, Lattice, SnappedTube, Vec2 } from './types';
 import { compileWell, type Well } from './wells';
 import { SpecError } from './errors';
+
+/** The fields of a base problem that prepareProblem reads (a validated spec of any task will do). */
+export interface ProblemSpec {
+  well: WellSpec;
+  grid: GridSpec;
+  tubes?: TubeSpec[];
+  potential?: string;
+}
 
 export interface PrepareOptions {
   /** Extra boxes the lattice must cover (e.g. where a moving tube goes). */
@@ -29,6 +37,21 @@ export interface PreparedProblem {
   matrix(tubesOverride?: SnappedTube[]): CsrMatrix;
 }
 
+/** Samples per axis of the quick area estimate made before rasterising. */
+const AREA_SAMPLES = 200;
+
+/** Unknowns expected at spacing h, from the fraction of a coarse sample grid of the bounding box inside the well. */
+function estimateUnknowns(well: Well, h: number): number {
+  const [x0, y0] = well.bbox.min;
+  const [x1, y1] = well.bbox.max;
+  let inside = 0;
+  for (let j = 0; j < AREA_SAMPLES; j++) {
+    const y = y0 + ((j + 0.5) / AREA_SAMPLES) * (y1 - y0);
+    for (let i = 0; i < AREA_SAMPLES; i++) if (well.contains(x0 + ((i + 0.5) / AREA_SAMPLES) * (x1 - x0), y)) inside++;
+  }
+  return ((inside / (AREA_SAMPLES * AREA_SAMPLES)) * (x1 - x0) * (y1 - y0)) / (h * h);
+}
+
 /**
  * Compiles the well and potential, builds the lattice, snaps the tubes and checks the budget.
  *
@@ -39,7 +62,7 @@ export interface PreparedProblem {
  * const { lattice, matrix } = prepareProblem({ well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 0.05 }, tubes: [] });
  * lowestEigenpairs(matrix(), 4);
  */
-export function prepareProblem(spec: BaseProblemInput, options: PrepareOptions = {}): PreparedProblem {
+export function prepareProblem(spec: ProblemSpec, options: PrepareOptions = {}): PreparedProblem {
   const well = compileWell(spec.well, { resolveFile: options.resolveFile });
   const h = spec.grid.h;
   const offset: Vec2 = spec.grid.offset ? [spec.grid.offset[0], spec.grid.offset[1]] : [0, 0];
@@ -53,7 +76,7 @@ export function prepareProblem(spec: BaseProblemInput, options: PrepareOptions =
     y1 = Math.max(y1, box.max[1]);
   }
   const boxSites = ((x1 - x0) / h + 3) * ((y1 - y0) / h + 3);
-  checkBudget({ unknowns: 0, h, boxSites });
+  checkBudget({ unknowns: estimateUnknowns(well, h), h, boxSites });
   const potential = spec.potential ? compilePotential(spec.potential) : undefined;
   const lattice = buildLattice({ well, h, offset, cover: options.cover, potential });
   checkBudget({ unknowns: lattice.n, h, configurations: options.configurations ?? 1 });

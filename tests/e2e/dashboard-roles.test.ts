@@ -71,7 +71,7 @@ describe.each(['owner', 'author', 'coauthor', 'admin'] as const)('%s', (role) =>
     expect(await count(page, 'invite-form')).toBe(expectation.invite ? 1 : 0);
     expect(await page.locator('#owner-actions').count()).toBe(expectation.ownerActions ? 1 : 0);
     expect((await count(page, 'member-role-select')) > 0).toBe(expectation.roleSelects);
-    if (role === 'admin') await page.getByText('Site admin', { exact: true }).first().waitFor();
+    if (role === 'admin') await page.locator('main').getByText('Site admin', { exact: true }).waitFor();
     await screenshot(page, `${role}-manuscript`);
     await context.close();
   });

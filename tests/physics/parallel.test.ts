@@ -6,6 +6,12 @@ import { buildLattice, snapTube } from '@/lib/physics/lattice';
 import { runChunks } from '@/lib/physics/parallel/pool';
 import { type ChunkResult, type ScanJob, scanChunks } from '@/lib/physics/parallel/scan-chunk';
 import { compileWell } from '@/lib/physics/wells';
+import { resultHash } from '@/lib/physics/canonical';
+import { parseTaskSpec } from '@/lib/physics/spec';
+import type { DegeneracySpec } from '@/lib/physics/spec/degeneracy';
+import type { PositionSweepSpec } from '@/lib/physics/spec/position-sweep';
+import { runDegeneracy } from '@/lib/physics/tasks/degeneracy';
+import { runPositionSweep } from '@/lib/physics/tasks/position-sweep';
 
 function job(): ScanJob {
   const h = 1 / 10;
@@ -25,6 +31,7 @@ function job(): ScanJob {
     tol: 1e-8,
     seed: 1,
     warmStart: true,
+    method: 'shift-invert',
   };
 }
 
@@ -61,5 +68,16 @@ describe('parallel scan pool', () => {
     const controller = new AbortController();
     const pending = runChunks(j, scanChunks(j.nb), { workers: 2, signal: controller.signal, onPositions: () => controller.abort() });
     await expect(pending).rejects.toBeInstanceOf(AbortError);
+  });
+
+  it('degeneracy scans and energy landscapes hash identically for 1 and 2 workers', async () => {
+    const well = { polygon: { points: [[0, 0], [1, 0.12], [1.05, 0.75], [0.45, 1.05], [-0.08, 0.62]] } };
+    const deg = parseTaskSpec({ task: 'degeneracy', well, grid: { h: 1 / 12 }, moving: { alpha: 0.5 } }) as DegeneracySpec;
+    const one = await runDegeneracy(deg, { workers: 1 });
+    const two = await runDegeneracy(deg, { workers: 2 });
+    expect(resultHash(two)).toBe(resultHash(one));
+    expect(one.count % 2).toBe(1);
+    const land = parseTaskSpec({ task: 'position-sweep', well, grid: { h: 1 / 12 }, moving: { alpha: 0.3 }, region: { min: [0.2, 0.2], max: [0.8, 0.9] }, levels: 2 }) as PositionSweepSpec;
+    expect(resultHash(await runPositionSweep(land, { workers: 2 }))).toBe(resultHash(await runPositionSweep(land, { workers: 0 })));
   });
 });

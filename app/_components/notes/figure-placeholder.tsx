@@ -36,7 +36,7 @@ export function FigurePlaceholder({ label, version, data }: FigurePlaceholderPro
           {entry.figure.kind} · {label} · {state}
         </p>
       </div>
-      <WellDrawing params={pinned?.params ?? entry.figure.params} idPrefix={`preview-${label}-${version ?? 'live'}`} className="mt-3" />
+      <WellDrawing params={pinned?.params ?? entry.figure.params} idPrefix={`preview-${label}-${version ?? 'live'}`} className="mt-3 max-w-[15rem]" />
       <figcaption className="mt-2 text-sm text-slate-600">{pinned?.caption ?? entry.figure.caption}</figcaption>
     </figure>
   );

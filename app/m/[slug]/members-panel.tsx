@@ -56,7 +56,7 @@ export function MembersPanel({
   }
 
   return (
-    <Card title="Members" id="members" className="self-start">
+    <Card title="Members" id="members" className="min-w-0 self-start">
       {error && <FormAlert>{error.message}</FormAlert>}
       {isLoading && !members && (
         <ul className="space-y-3" aria-busy="true" aria-label="Loading members">
@@ -112,7 +112,7 @@ export function MembersPanel({
                 )}
                 {!canManage && self && isMember && (
                   <div className="mt-2">
-                    <ConfirmButton question="Leave this manuscript?" confirmLabel="Leave" onConfirm={() => remove(member.userId)} variant="quiet" testId="leave">
+                    <ConfirmButton question="Leave this manuscript?" confirmLabel="Leave" onConfirm={() => remove(member.userId)} variant="secondary" testId="leave">
                       Leave
                     </ConfirmButton>
                   </div>

@@ -53,7 +53,7 @@ export default async function ManuscriptPage({ params }: Props) {
         <ManuscriptTabs slug={manuscript.slug} active="" permissions={permissions} />
       </header>
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="space-y-6">
           <Card title="Abstract" id="abstract">
             {manuscript.abstract ? (

@@ -5,6 +5,7 @@ import { AbortError } from '../errors';
 import { mulberry32 } from '../random';
 import type { CsrMatrix, EigenOptions, EigenResult } from '../types';
 import { columnNorm, combine, copyColumn, gram, scaleColumn, type Cols } from './block-ops';
+import { chebyshevDegreeFor, chebyshevPreconditioner } from './chebyshev';
 import { denseEigenpairs, hermitianEigen } from './dense';
 
 /** Default relative residual tolerance ||H v - lambda v|| / max(1, |lambda|). */
@@ -306,8 +307,9 @@ function initialBlock(ws: Workspace, options: EigenOptions): void {
  *
  * @param matrix - real symmetric (`im` null) or complex Hermitian CSR, both triangles
  * @param k - number of lowest pairs, 1 <= k <= n (validated by lowestEigenpairs)
- * @param options - tol (default 1e-9), maxIter (default 5000), seed (default 1), initial (warm start), preconditioner,
- *   signal (throws AbortError), onProgress (fraction in [0, 1])
+ * @param options - tol (default 1e-9), maxIter (default 5000), seed (default 1), initial (warm start), signal (throws
+ *   AbortError), onProgress (fraction in [0, 1]), preconditioner (default: a Chebyshev polynomial in H, see
+ *   chebyshev.ts; pass null for none, or e.g. a sparse-factorisation solve)
  * @see A. V. Knyazev, SIAM J. Sci. Comput. 23, 517 (2001), doi:10.1137/S1064827500366124
  * @see U. Hetmaniuk and R. Lehoucq, J. Comput. Phys. 218, 324 (2006) (orthonormal basis variant)
  * @example
@@ -331,6 +333,9 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
     tmp: allocCols(2 * m, n, complex),
   };
 
+  // No preconditioner given (undefined): a Chebyshev polynomial in H; null asks for none.
+  const preconditioner =
+    options.preconditioner === undefined ? chebyshevPreconditioner(matrix, chebyshevDegreeFor(n)) : options.preconditioner;
   initialBlock(ws, options);
   let lambda = new Float64Array(m);
   // Rayleigh-Ritz on X alone (exact A X): used at the start and to refresh drifting recurrences.
@@ -428,9 +433,9 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
       if (j !== t) copyColumn(n, ws.R, j, ws.R, t);
     });
     const W = at(ws.S, m + p);
-    if (options.preconditioner) {
+    if (preconditioner) {
       const span = (arr: Float64Array, off: number) => arr.subarray(off * n, (off + a) * n);
-      options.preconditioner(
+      preconditioner(
         { n, k: a, re: span(ws.R.re, 0), im: ws.R.im ? span(ws.R.im, 0) : null },
         { n, k: a, re: span(W.re, W.off), im: W.im ? span(W.im, W.off) : null },
       );
@@ -438,7 +443,6 @@ export function lobpcgEigenpairs(matrix: CsrMatrix, k: number, options: EigenOpt
       for (let t = 0; t < a; t++) copyColumn(n, ws.R, t, W, t);
     }
     const aKept = orthonormalizeW(ws, m + p, a);
-    if (process.env.H1DBG && iterations % 50 === 1) console.error(iterations, "p", p, "a", a, "kept", aKept, Array.from(rel).map((v) => v.toExponential(1)).join(" "));
     if (aKept + p === 0) break; // no new direction: X spans an invariant subspace to rounding
     matVec(matrix, ws, W, at(ws.AS, m + p), aKept);
     const s = m + p + aKept;

@@ -12,6 +12,8 @@ export interface ShiftInvertOptions extends EigenOptions {
   sigma?: number;
   /** Reuse a symbolic analysis of the same sparsity pattern (otherwise the last one is reused when it matches). */
   symbolic?: LdlSymbolic | null;
+  /** Reuse the last symbolic analysis when the pattern matches (default true; the bench turns it off for cold timings). */
+  reuseAnalysis?: boolean;
   /** Ordering hints for a fresh analysis (e.g. lattice coordinates). */
   ordering?: NestedDissectionOptions;
   /** Extra Ritz pairs tracked beyond k so that a level degenerate with level k does not stall. Default 2. */
@@ -185,10 +187,14 @@ export function gershgorinLowerBound(matrix: CsrMatrix): number {
 
 let lastSymbolic: LdlSymbolic | null = null;
 
-function factorShifted(matrix: CsrMatrix, options: Pick<ShiftInvertOptions, 'sigma' | 'symbolic' | 'ordering'>): LdlFactor {
+function factorShifted(
+  matrix: CsrMatrix,
+  options: Pick<ShiftInvertOptions, 'sigma' | 'symbolic' | 'ordering' | 'reuseAnalysis'>,
+): LdlFactor {
   let symbolic = options.symbolic ?? null;
   if (!symbolic) {
-    symbolic = lastSymbolic && matchesPattern(lastSymbolic, matrix) ? lastSymbolic : analyzeLdl(matrix, options.ordering);
+    const reuse = (options.reuseAnalysis ?? true) && lastSymbolic !== null && matchesPattern(lastSymbolic, matrix);
+    symbolic = reuse ? lastSymbolic! : analyzeLdl(matrix, options.ordering);
     lastSymbolic = symbolic;
   }
   if (options.sigma !== undefined) {

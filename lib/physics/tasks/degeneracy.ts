@@ -48,8 +48,11 @@ export interface DegeneracyPoint {
   gap: number;
   /** The scanned plaquette centre with the smallest gap next to the point. */
   scanned: Vec2;
-  /** How the point was located: 'landing' (scan hit it), 'fit' (gap^2 vertex) or 'scan' (best scanned position). */
-  method: 'landing' | 'fit' | 'scan';
+  /**
+   * How the point was located: 'landing' (the scan hit it), 'edge' (on an edge with undefined overlap, by linear
+   * interpolation of the gap), 'fit' (gap^2 vertex) or 'scan' (best scanned position, when the fit is unusable).
+   */
+  method: 'landing' | 'edge' | 'fit' | 'scan';
   /** Number of elementary loops merged into the loop that found it (1 = one elementary loop). */
   loopSites: number;
 }
@@ -309,6 +312,26 @@ function locatePoint(
     const q = (best - p) / na;
     const at = centre(p, q);
     return { at, gap: scan.gap[best], scanned: at, method: 'landing', loopSites: block.sites.length };
+  }
+  if (block.sites.length === 2 && block.reasons.length === 1 && block.reasons[0] === 'overlap') {
+    // Two sites merged across one undefined edge (e.g. opposite parities on a mirror line): the levels cross on that
+    // edge; the gap is |linear| along it, so the zero sits at gA / (gA + gB) of the way from A to B.
+    const [[s1, t1], [s2, t2]] = block.sites;
+    const edge: [[number, number], [number, number]] =
+      s1 === s2 ? [[s1 - 1, Math.max(t1, t2) - 1], [s1, Math.max(t1, t2) - 1]] : [[Math.max(s1, s2) - 1, t1 - 1], [Math.max(s1, s2) - 1, t1]];
+    const [[pA, qA], [pB, qB]] = edge;
+    const gA = tightGap(env.job, pA, qA, env.pair, env.signal);
+    const gB = tightGap(env.job, pB, qB, env.pair, env.signal);
+    const A = centre(pA, qA);
+    const B = centre(pB, qB);
+    const t = gA + gB > 0 ? gA / (gA + gB) : 0.5;
+    return {
+      at: [A[0] + t * (B[0] - A[0]), A[1] + t * (B[1] - A[1])],
+      gap: Math.min(gA, gB),
+      scanned: gA <= gB ? A : B,
+      method: 'edge',
+      loopSites: 2,
+    };
   }
   // Corners of the block's sites, and one ring around them, inside the scan.
   let pMin = Infinity;

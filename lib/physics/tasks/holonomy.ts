@@ -1,6 +1,7 @@
 // Task 'holonomy': carry one tube around a rasterised loop and multiply the gauge-mapped overlaps of the chosen level,
 // W = prod <psi_k | G_k^dagger psi_{k+1}> (PHYSICS.md section 3); for a real problem the sign and its residual.
 import { lowestEigenpairs } from '../eigen';
+import { SpecError } from '../errors';
 import { gaugeMapForStep, gaugedOverlap, applyGaugeMap } from '../gauge-map';
 import { buildHamiltonian, isRealFlux } from '../hamiltonian';
 import { rasteriseLoop } from '../loop-path';
@@ -92,7 +93,7 @@ export async function runHolonomy(spec: HolonomySpec, ctx: TaskRunContext = {}):
   const level = spec.level;
   const tol = spec.tol ?? TASK_DEFAULT_TOL;
   const k = Math.min(level + 2, lattice.n);
-  if (level >= lattice.n) throw new RangeError(`level ${level} does not exist: the grid has only ${lattice.n} unknowns`);
+  if (level >= lattice.n) throw new SpecError(`level ${level} does not exist: the grid has only ${lattice.n} unknowns`, 'level');
   const real = isRealFlux([alpha, ...fixed.map((t) => t.alpha)]);
   const report = progressReporter(ctx, 'carrying the tube around the loop');
   const job = { lattice, fixed, alpha };

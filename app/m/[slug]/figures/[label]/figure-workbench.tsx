@@ -6,7 +6,7 @@ import { useRouter } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import type { FieldValues } from 'react-hook-form';
 import type { RunResponse } from '@/hooks/use-run';
-import { defaultViewSpec } from '@/lib/charts';
+import { CHART_VIEWS, defaultViewSpec } from '@/lib/charts';
 import type { FigureKind } from '@/lib/validations/figure';
 import { Card } from '../../../../_components/card';
 import { DisplayUnitsSwitch, useDisplayUnits } from '../../../../_components/figures/display-units';
@@ -105,7 +105,7 @@ export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResul
             <FigureDetailsForm figureId={figure.id} title={figure.title} caption={figure.caption} onSaved={() => router.refresh()} />
           </Card>
           <Card title="View" description="How the chart is drawn (Vega-Lite).">
-            <ViewSpecEditor figureId={figure.id} viewSpec={viewSpec} defaultView={defaultView} onSaved={setViewSpec} />
+            <ViewSpecEditor figureId={figure.id} viewSpec={viewSpec} defaultView={defaultView} views={CHART_VIEWS[kind] ?? []} onSaved={setViewSpec} />
           </Card>
         </div>
       ) : null}

@@ -3,7 +3,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { forwardRef, useImperativeHandle, useState } from 'react';
+import { forwardRef, useEffect, useImperativeHandle, useState } from 'react';
 import { FormProvider, useForm, useWatch, type FieldValues, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { updateFigure } from '@/hooks/use-figure';
@@ -76,7 +76,12 @@ export const ParamsForm = forwardRef<ParamsFormHandle, ParamsFormProps>(function
   ref,
 ) {
   const methods = useForm<FieldValues>({ defaultValues: initial, resolver: resolverFor(kind), mode: 'onChange' });
-  const { handleSubmit, formState, setError, reset, control } = methods;
+  const { handleSubmit, formState, setError, reset, control, getValues } = methods;
+  useEffect(() => {
+    // Registering optional fields (offset, potential, check boxes) adds keys the stored spec leaves out; take the
+    // registered shape as the baseline so that an untouched form is not "dirty".
+    reset(getValues(), { keepValues: true });
+  }, [reset, getValues]);
   const watched = useWatch({ control });
   const [status, setStatus] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
 
@@ -84,7 +89,7 @@ export const ParamsForm = forwardRef<ParamsFormHandle, ParamsFormProps>(function
     setStatus(null);
     try {
       const { figure } = await updateFigure(figureId, { params: values });
-      reset(figure.params as FieldValues);
+      reset(getValues(), { keepValues: true });
       setStatus({ tone: 'ok', text: 'Parameters saved.' });
       onSaved?.(figure.params);
       return true;

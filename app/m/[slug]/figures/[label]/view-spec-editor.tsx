@@ -13,10 +13,12 @@ export interface ViewSpecEditorProps {
   viewSpec: Record<string, unknown> | null;
   /** The kind's default view for this result (data values left out), shown for reference. */
   defaultView: unknown;
+  /** The alternative views this kind offers (chosen with usermeta.view). */
+  views?: readonly string[];
   onSaved: (viewSpec: Record<string, unknown> | null) => void;
 }
 
-export function ViewSpecEditor({ figureId, viewSpec, defaultView, onSaved }: ViewSpecEditorProps) {
+export function ViewSpecEditor({ figureId, viewSpec, defaultView, views = [], onSaved }: ViewSpecEditorProps) {
   const id = useId();
   const [text, setText] = useState(viewSpec ? JSON.stringify(viewSpec, null, 2) : '');
   const [problem, setProblem] = useState<string | null>(null);
@@ -57,6 +59,17 @@ export function ViewSpecEditor({ figureId, viewSpec, defaultView, onSaved }: Vie
         <code className="rounded bg-slate-100 px-1 font-mono text-xs">{'{"height": 400, "title": "Spectral flow"}'}</code>. Leave empty for
         the default.
       </label>
+      {views.length > 1 ? (
+        <p className="text-xs text-slate-600">
+          Views of this kind: {views.map((v, k) => (
+            <span key={v}>
+              {k > 0 ? ', ' : ''}
+              <code className="rounded bg-slate-100 px-1 font-mono">{`{"usermeta": {"view": "${v}"}}`}</code>
+            </span>
+          ))}
+          {views.includes('density') || views.includes('landscape') ? ' (add "level": n for another level).' : '.'}
+        </p>
+      ) : null}
       <textarea
         id={id}
         rows={8}
