@@ -44,13 +44,17 @@ ensure_user() {
 
 # Run a PostgreSQL tool as the unprivileged owner of the data directory (initdb/postgres refuse root).
 as_pg() {
-  if is_root; then runuser -u "$PG_SUPERUSER" -- "$@"; else "$@"; fi
+  # From / : the postgres user may not be allowed into the caller's working directory.
+  if is_root; then (cd / && runuser -u "$PG_SUPERUSER" -- "$@"); else "$@"; fi
 }
 
 # .data/pg in the project when the postgres user can reach it; otherwise a per-clone directory under /var/tmp.
 resolve_pgdata() {
-  if [ -n "${PGDATA:-}" ]; then printf '%s\n' "$PGDATA"; return; fi
-  if ! is_root || { id -u "$PG_SUPERUSER" >/dev/null 2>&1 && runuser -u "$PG_SUPERUSER" -- test -x "$ROOT"; }; then
+  if [ -n "${PGDATA:-}" ]; then
+    case "$PGDATA" in /*) printf '%s\n' "$PGDATA" ;; *) printf '%s/%s\n' "$PWD" "$PGDATA" ;; esac
+    return
+  fi
+  if ! is_root || { id -u "$PG_SUPERUSER" >/dev/null 2>&1 && (cd / && runuser -u "$PG_SUPERUSER" -- test -x "$ROOT"); }; then
     printf '%s\n' "$ROOT/.data/pg"
   else
     printf '/var/tmp/fluxfolio-pg-%s\n' "$(printf '%s' "$ROOT" | sha256sum | cut -c1-10)"
@@ -92,7 +96,7 @@ cmd_start() {
   mkdir -p "$PG_DATA"
   if is_root; then chown "$PG_SUPERUSER:" "$PG_DATA"; fi
   chmod 700 "$PG_DATA"
-  if is_root && ! runuser -u "$PG_SUPERUSER" -- test -x "$PG_DATA"; then
+  if is_root && ! (cd / && runuser -u "$PG_SUPERUSER" -- test -x "$PG_DATA"); then
     die "the '$PG_SUPERUSER' user cannot reach $PG_DATA (a parent folder is not traversable); set PGDATA to a path under /var/tmp"
   fi
   if [ ! -f "$PG_DATA/PG_VERSION" ]; then

@@ -48,6 +48,8 @@ export interface ChartOptions {
 }
 
 export const DEFAULT_WIDTH = 480;
+/** Below this width (CSS px) legends go under the plot. */
+export const NARROW_WIDTH = 420;
 export const DEFAULT_HEIGHT = 320;
 
 /** Resolved units of the options. */
@@ -65,9 +67,11 @@ export function baseSpec(options: ChartOptions, body: SpecPart, size?: { width: 
       ? {}
       : {
           width: size?.width ?? options.width ?? DEFAULT_WIDTH,
-          height: size?.height ?? options.height ?? DEFAULT_HEIGHT,
+          // Without an explicit height, keep the default 3:2 frame at any width.
+          height: size?.height ?? options.height ?? Math.round(((options.width ?? DEFAULT_WIDTH) * DEFAULT_HEIGHT) / DEFAULT_WIDTH),
           ...(options.fit ? { autosize: { type: 'fit', contains: 'padding' } } : {}),
         };
+  const narrow = (options.width ?? DEFAULT_WIDTH) < NARROW_WIDTH;
   const spec: SpecPart = {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...sized,
@@ -77,7 +81,14 @@ export function baseSpec(options: ChartOptions, body: SpecPart, size?: { width: 
     config: {
       font: CHART_FONT,
       axis: { labelFontSize: 10, titleFontSize: 11, titleFontWeight: 'normal', grid: false, tickColor: '#333', domainColor: '#333' },
-      legend: { labelFontSize: 10, titleFontSize: 10, titleFontWeight: 'normal', labelLimit: 240 },
+      legend: {
+        labelFontSize: 10,
+        titleFontSize: 10,
+        titleFontWeight: 'normal',
+        labelLimit: 240,
+        // At one journal column (about 325 px) a legend on the right would take half the plot: put it underneath.
+        ...(narrow ? { orient: 'bottom', direction: 'horizontal', columns: 6, gradientLength: 140 } : {}),
+      },
       title: { fontSize: 12, fontWeight: 'normal' },
       view: { stroke: '#333' },
       range: { category: [...OKABE_ITO] },

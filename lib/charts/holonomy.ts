@@ -138,18 +138,22 @@ export function holonomySpec(result: unknown, options: ChartOptions = {}): Chart
         mark: { type: 'rule', stroke: POINT_COLOUR, strokeWidth: 1.2 },
         encoding: { x: { field: 're', ...axis('Re W') }, y: { field: 'im', ...axis('Im W') }, x2: { field: 're2' }, y2: { field: 'im2' } },
       },
-      {
-        // W first so that W/|W| is drawn on top of it when |W| = 1.
-        data: { values: [{ re: tidy(re), im: tidy(im), what: 'W' }, { re: tidy(unit.re), im: tidy(unit.im), what: 'W/|W|' }] },
-        mark: { type: 'point', filled: true, size: 70 },
+      // W as a ring and W/|W| as a filled diamond drawn over it, so both show when |W| = 1.
+      ...(
+        [
+          ['W', { re: tidy(re), im: tidy(im) }, { filled: false, size: 110, strokeWidth: 1.5 }],
+          ['W/|W|', { re: tidy(unit.re), im: tidy(unit.im) }, { filled: true, size: 60 }],
+        ] as const
+      ).map(([what, at, mark]) => ({
+        data: { values: [{ ...at, what }] },
+        mark: { type: 'point', color: POINT_COLOUR, ...mark },
         encoding: {
           x: { field: 're', ...axis('Re W') },
           y: { field: 'im', ...axis('Im W') },
           shape: { field: 'what', type: 'nominal', title: null, scale: { domain: ['W/|W|', 'W'], range: ['diamond', 'circle'] } },
-          color: { value: POINT_COLOUR },
           tooltip: [{ field: 'what' }, { field: 're', format: '.6f' }, { field: 'im', format: '.6f' }],
         },
-      },
+      })),
       {
         data: { values: [{}] },
         mark: { type: 'text', align: 'left', baseline: 'top', fontSize: 10, x: 4, y: 4, lineBreak: '\n', lineHeight: 13 },

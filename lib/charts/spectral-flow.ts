@@ -98,7 +98,7 @@ export function spectralFlowSpec(result: unknown, options: ChartOptions = {}): C
                 x: { field: 'alpha', type: 'quantitative' },
                 y: { field: 'E', type: 'quantitative' },
                 detail: { field: 'level', type: 'nominal' },
-                strokeDash: { field: 'source', type: 'nominal', title: null, scale: { domain: sources, range: [[1, 0], [4, 3]] } },
+                strokeDash: { field: 'source', type: 'nominal', title: null, scale: { domain: sources, range: [[1, 0], [4, 3]] }, legend: { orient: 'top', direction: 'horizontal' } },
               },
             },
           ]

@@ -5,8 +5,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sqlClient } from '@/db';
-import { signInWithPassword, type AppClient } from '../helpers/app';
-import { launchBrowser, newPage, screenshot, signInInBrowser } from '../helpers/browser';
+import { APP_URL, signInWithPassword, type AppClient } from '../helpers/app';
+import { launchBrowser, newPage, screenshot } from '../helpers/browser';
 import { createTestTeam, type TestTeam } from '../helpers/db';
 
 /** A small spectral flow (unit disk, off-centre tube, h = 1/20): a few seconds of solver time. */
@@ -15,7 +15,7 @@ const FLOW_PARAMS = {
   well: { disk: { center: [0, 0], radius: 1 } },
   grid: { h: 0.05 },
   tubes: [{ at: [0.3, 0.1], alpha: 0 }],
-  sweep: { tube: 0, from: 0, to: 1, steps: 21 },
+  sweep: { tube: 0, from: 0, to: 1, steps: 11 },
   levels: 6,
 };
 
@@ -66,9 +66,16 @@ function base(): string {
   return `/m/${team.manuscript.slug}`;
 }
 
+/** A page signed in through next-auth's credentials endpoint (the browser context keeps the session cookie). */
 async function signedIn(email: string, password: string): Promise<Page> {
   const page = await newPage(browser, { viewport: { width: 1360, height: 900 } });
-  await signInInBrowser(page, email, password);
+  const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  const answer = await page.request.post('/api/auth/callback/credentials', {
+    form: { csrfToken, email, password, callbackUrl: `${APP_URL}/` },
+  });
+  expect(answer.ok()).toBe(true);
+  const session = (await (await page.request.get('/api/auth/session')).json()) as { user?: { email?: string } };
+  expect(session.user?.email).toBe(email);
   return page;
 }
 

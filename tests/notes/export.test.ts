@@ -7,6 +7,7 @@ import { defaultViewSpec, type ChartSpec } from '@/lib/charts';
 import { renderPdf } from '@/lib/export/render-pdf';
 import { renderPng, svgToPng } from '@/lib/export/render-png';
 import { renderSvg } from '@/lib/export/render-svg';
+import { exportFigure, exportQuerySchema } from '@/lib/export/export-figure';
 import { cmToPt, cmToPx, figureSize, figureWidthSchema } from '@/lib/export/widths';
 import { smallResult } from './solver-results';
 
@@ -113,5 +114,42 @@ describe('PDF', () => {
     const a = await renderPdf(chart);
     const b = await renderPdf(chart);
     expect(a.pdf.equals(b.pdf)).toBe(true);
+  });
+});
+
+describe('exportFigure and the export query', () => {
+  it('PDF, PNG, SVG and CSV of a figure with snapshot file names', async () => {
+    const { spec, result } = await smallResult('degeneracy');
+    const base = { kind: 'degeneracy', result, params: spec, label: 'gap-map', version: 2 } as const;
+    const pdf = await exportFigure({ ...base, format: 'pdf' });
+    expect(pdf.fileName).toBe('gap-map-v2.pdf');
+    expect(pdf.contentType).toBe('application/pdf');
+    expect((pdf.body as Buffer).subarray(0, 4).toString('latin1')).toBe('%PDF');
+    const png = await exportFigure({ ...base, format: 'png', width: 'two-column' });
+    expect(PNG.sync.read(png.body as Buffer).width).toBe(2102);
+    const svg = await exportFigure({ ...base, format: 'svg', version: null });
+    expect(svg.fileName).toBe('gap-map.svg');
+    expect(svg.body as string).toMatch(/width="8\.6cm"/);
+    const csv = await exportFigure({ ...base, format: 'csv' });
+    expect(csv.contentType).toMatch(/^text\/csv/);
+    expect((csv.body as string).split('\r\n')[0]).toBe('table,row,column,value');
+    expect(csv.body as string).toContain('gapMap');
+  });
+
+  it('query schema: defaults, units, and per-field errors', () => {
+    expect(exportQuerySchema.parse({})).toEqual({ format: 'pdf', width: 'one-column', units: { system: 'dimensionless' } });
+    expect(exportQuerySchema.parse({ format: 'png', width: 'two-column', units: 'physical', L: '50' })).toEqual({
+      format: 'png',
+      width: 'two-column',
+      units: { system: 'physical', lengthNm: 50, effectiveMass: 0.067 },
+    });
+    const bad = exportQuerySchema.safeParse({ format: 'gif', width: 'half' });
+    expect(bad.success).toBe(false);
+    if (bad.success) return;
+    expect(bad.error.issues.map((i) => i.path[0]).sort()).toEqual(['format', 'width']);
+    const badUnits = exportQuerySchema.safeParse({ units: 'physical', L: 'abc' });
+    expect(badUnits.success).toBe(false);
+    if (badUnits.success) return;
+    expect(badUnits.error.issues[0].path).toEqual(['L']);
   });
 });

@@ -70,11 +70,11 @@ describe('holonomy at a generic flux (Berry 1984: phase of a charge carried arou
     expect(Math.abs(r.modulus - 1)).toBeLessThan(1e-10);
   });
 
-  it('an enclosed fixed half tube adds pi to the phase of a far loop', async () => {
+  it('a fixed half tube inside the loop leaves the moving tube its own phase -2 pi alpha', async () => {
     const r = await runHolonomy(
       spec({ moving: { alpha: 0.3 }, tubes: [{ at: [0.2, 0.1], alpha: 0.5 }], loop: { circle: { center: [0, 0], radius: 1.25 } } }),
     );
-    // The moving tube encloses the charge (-2 pi 0.3); the fixed tube's flux is not seen by the moving tube's own phase.
+    // The fixed tube is part of H at every step (the same for all k), so only the moving tube's flux enters W.
     expect(r.phase).toBeCloseTo(reduce(-2 * Math.PI * 0.3), 8);
   });
 

@@ -54,9 +54,13 @@ describe('parallel scan pool', () => {
     const j = job();
     const chunks = scanChunks(j.nb);
     expect(chunks.length).toBeGreaterThan(1);
-    const inline = await runChunks(j, chunks, { workers: 0 });
-    const one = await runChunks(j, chunks, { workers: 1 });
-    const two = await runChunks(j, chunks, { workers: 2 });
+    const used: number[] = [];
+    const onWorkers = (count: number) => used.push(count);
+    const inline = await runChunks(j, chunks, { workers: 0, onWorkers });
+    const one = await runChunks(j, chunks, { workers: 1, onWorkers });
+    const two = await runChunks(j, chunks, { workers: 2, onWorkers });
+    // Worker threads really ran (the TypeScript entry loads through tsx inside the worker).
+    expect(used).toEqual([0, 1, 2]);
     expect(bytes(one)).toBe(bytes(inline));
     expect(bytes(two)).toBe(bytes(inline));
     // Every edge overlap is defined and of modulus at most 1 (states are normalised).
@@ -76,6 +80,7 @@ describe('parallel scan pool', () => {
     const one = await runDegeneracy(deg, { workers: 1 });
     const two = await runDegeneracy(deg, { workers: 2 });
     expect(resultHash(two)).toBe(resultHash(one));
+    expect([one.diagnostics.workers, two.diagnostics.workers]).toEqual([1, 2]);
     expect(one.count % 2).toBe(1);
     const land = parseTaskSpec({ task: 'position-sweep', well, grid: { h: 1 / 12 }, moving: { alpha: 0.3 }, region: { min: [0.2, 0.2], max: [0.8, 0.9] }, levels: 2 }) as PositionSweepSpec;
     expect(resultHash(await runPositionSweep(land, { workers: 2 }))).toBe(resultHash(await runPositionSweep(land, { workers: 0 })));

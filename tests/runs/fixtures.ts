@@ -16,14 +16,14 @@ export const SMALL_SPECTRUM = {
   levels: 4,
 } as const;
 
-/** A spectral flow that takes a few seconds (many flux steps on a finer grid): long enough to cancel or kill. */
+/** A spectral flow that takes a few seconds (40 flux steps, ~1,300 unknowns): long enough to cancel or kill mid-run. */
 export const SLOW_FLUX_SWEEP = {
   task: 'flux-sweep',
   well: { disk: { center: [0, 0], radius: 1 } },
-  grid: { h: 1 / 30 },
+  grid: { h: 1 / 20 },
   tubes: [{ at: [0.2, 0.1], alpha: 0 }],
-  sweep: { tube: 0, from: 0, to: 1, steps: 400 },
-  levels: 6,
+  sweep: { tube: 0, from: 0, to: 1, steps: 40 },
+  levels: 4,
 } as const;
 
 export interface TestWorld {

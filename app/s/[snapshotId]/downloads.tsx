@@ -33,7 +33,7 @@ export function SnapshotDownloads({ snapshotId }: { snapshotId: string }) {
         </div>
       ))}
       <p className="text-xs text-slate-500">
-        `npm run -s reproduce -- bundle.json` recomputes the result and checks its SHA-256.
+        <code className="font-mono">npm run -s reproduce -- bundle.json</code> recomputes the result and checks its SHA-256.
       </p>
     </div>
   );

@@ -1,5 +1,6 @@
 // Runs the chunks of a scan inline or over a pool of worker_threads; chunks are fixed in advance, so the results are
 // identical bit for bit for any number of workers. Cancellation through the signal terminates the workers.
+import { existsSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import os from 'node:os';
 import path from 'node:path';
@@ -10,11 +11,16 @@ import { type ChunkResult, runScanChunk, type ScanChunk, type ScanJob } from './
 
 /** Options of a pooled scan. */
 export interface PoolOptions {
-  /** 0 runs inline on this thread; n >= 1 uses n worker threads. Default: see defaultWorkerCount. */
+  /**
+   * 0 runs inline on this thread; n >= 1 uses n worker threads (inline when the TypeScript worker entry or the tsx
+   * loader cannot be found, e.g. inside a bundle). Default: see defaultWorkerCount.
+   */
   workers?: number;
   signal?: AbortSignal;
   /** Called with the number of positions solved so far (owned positions only). */
   onPositions?: (done: number) => void;
+  /** Called once with the number of worker threads actually used (0 = inline). */
+  onWorkers?: (count: number) => void;
 }
 
 /** Scans with fewer positions than this run inline by default (starting threads costs more). Bench: npm run bench. */
@@ -36,18 +42,51 @@ export function defaultWorkerCount(positions: number): number {
   return Math.max(1, Math.min(os.availableParallelism?.() ?? os.cpus().length, MAX_DEFAULT_WORKERS));
 }
 
+/** The TypeScript worker entry: next to this module, or (inside a bundle, where this module has moved) under the cwd. */
+function workerEntry(): string | null {
+  const candidates: string[] = [];
+  try {
+    candidates.push(path.join(path.dirname(fileURLToPath(import.meta.url)), 'scan-worker.ts'));
+  } catch {
+    // import.meta.url is not a file URL inside some bundles.
+  }
+  candidates.push(path.join(process.cwd(), 'lib', 'physics', 'parallel', 'scan-worker.ts'));
+  return candidates.find((file) => existsSync(file)) ?? null;
+}
+
+/** The tsx ESM API module (its `register()` installs the TypeScript loader in the calling thread), or null. */
+function tsxApiPath(): string | null {
+  const bases: string[] = [];
+  try {
+    bases.push(fileURLToPath(import.meta.url));
+  } catch {
+    // Not a file URL inside some bundles.
+  }
+  bases.push(path.join(process.cwd(), 'package.json'));
+  for (const base of bases) {
+    try {
+      const require = createRequire(base);
+      const api = path.join(path.dirname(require.resolve('tsx/package.json')), 'dist', 'esm', 'api', 'index.mjs');
+      if (existsSync(api)) return api;
+    } catch {
+      // Try the next base.
+    }
+  }
+  return null;
+}
+
 /**
- * Bootstrap source of a worker: registers the tsx loader in the worker thread, then imports the TypeScript entry.
- * (On Node 20 `execArgv: ['--import', 'tsx']` does not reach a worker's own entry module, so the loader is registered
- * from a small eval'd script instead; paths are resolved at call time, so bundlers leave them alone.)
+ * Bootstrap source of a worker: registers the tsx loader in the worker thread, then imports the TypeScript entry, or
+ * null when either cannot be found (then the scan runs inline). On Node 20 `execArgv: ['--import', 'tsx']` does not
+ * reach a worker's own entry module, so the loader is registered from a small eval'd script instead; paths are
+ * resolved at call time, so bundlers leave them alone.
  */
-function workerBootstrap(): string {
-  const here = path.dirname(fileURLToPath(import.meta.url));
-  const entry = pathToFileURL(path.join(here, 'scan-worker.ts')).href;
-  const require = createRequire(import.meta.url);
-  const tsxDir = path.dirname(require.resolve('tsx/package.json'));
-  const api = pathToFileURL(path.join(tsxDir, 'dist', 'esm', 'api', 'index.mjs')).href;
-  return `import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(entry)}); })`;
+function workerBootstrap(): string | null {
+  const entry = workerEntry();
+  if (!entry) return null;
+  const api = tsxApiPath();
+  if (!api) return null;
+  return `import(${JSON.stringify(pathToFileURL(api).href)}).then((m) => { m.register(); return import(${JSON.stringify(pathToFileURL(entry).href)}); })`;
 }
 
 /** Why a pooled scan failed inside a worker. */
@@ -72,8 +111,10 @@ class WorkerFailure extends Error {
 export async function runChunks(job: ScanJob, chunks: ScanChunk[], options: PoolOptions = {}): Promise<ChunkResult[]> {
   const workers = Math.max(0, Math.min(options.workers ?? defaultWorkerCount(job.na * job.nb), chunks.length));
   if (options.signal?.aborted) throw new AbortError();
-  if (workers === 0) return runInline(job, chunks, options);
-  return runPooled(job, chunks, workers, options);
+  const bootstrap = workers > 0 ? workerBootstrap() : null;
+  options.onWorkers?.(bootstrap === null ? 0 : workers);
+  if (workers === 0 || bootstrap === null) return runInline(job, chunks, options);
+  return runPooled(job, chunks, workers, bootstrap, options);
 }
 
 async function runInline(job: ScanJob, chunks: ScanChunk[], options: PoolOptions): Promise<ChunkResult[]> {
@@ -88,7 +129,7 @@ async function runInline(job: ScanJob, chunks: ScanChunk[], options: PoolOptions
   return out;
 }
 
-function runPooled(job: ScanJob, chunks: ScanChunk[], count: number, options: PoolOptions): Promise<ChunkResult[]> {
+function runPooled(job: ScanJob, chunks: ScanChunk[], count: number, bootstrap: string, options: PoolOptions): Promise<ChunkResult[]> {
   return new Promise<ChunkResult[]>((resolve, reject) => {
     const results: ChunkResult[] = new Array(chunks.length);
     const doneBy = new Float64Array(chunks.length);
@@ -114,7 +155,6 @@ function runPooled(job: ScanJob, chunks: ScanChunk[], count: number, options: Po
       worker.postMessage({ type: 'chunk', chunk: chunks[next++] });
     };
 
-    const bootstrap = workerBootstrap();
     for (let w = 0; w < count; w++) {
       const worker = new Worker(bootstrap, { eval: true });
       threads.push(worker);

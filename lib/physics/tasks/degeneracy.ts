@@ -90,6 +90,7 @@ export interface DegeneracyResult {
     maxLoopResidual: number;
     unresolvedBlocks: number;
     scanTol: number;
+    /** Worker threads used (0 = inline). */
     workers: number;
     warmStart: boolean;
     wallMs: number;
@@ -156,8 +157,15 @@ export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext = 
   const total = na * nb;
   const report = progressReporter(ctx, 'scanning tube positions');
   report(0);
-  const workers = ctx.workers;
-  const results = await runChunks(job, chunks, { workers, signal: ctx.signal, onPositions: (done) => report((0.9 * done) / total) });
+  let threads = 0;
+  const results = await runChunks(job, chunks, {
+    workers: ctx.workers,
+    signal: ctx.signal,
+    onPositions: (done) => report((0.9 * done) / total),
+    onWorkers: (count) => {
+      threads = count;
+    },
+  });
   const scan = assemble(job, results);
 
   const landingRel = Math.max(LANDING_REL_FLOOR, 10 * scanTol);
@@ -250,7 +258,7 @@ export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext = 
       maxLoopResidual,
       unresolvedBlocks: parity.unresolved,
       scanTol,
-      workers: workers ?? -1,
+      workers: threads,
       warmStart,
       wallMs: elapsedMs(start),
       ...runtimeFacts(),

@@ -1,0 +1,98 @@
+// One call for the export routes: a figure's chart (kind default + stored view spec, chosen units) as SVG, PNG or PDF at a
+// journal column width, or its data as CSV, with the content type and a file name; plus the zod schema of the request.
+import { z } from 'zod';
+import { chartSpecFor } from '@/lib/charts';
+import { snapshotFileName } from '@/lib/cite/citation';
+import { type DisplayUnits, displayUnitsQuerySchema } from '@/lib/units';
+import { resultCsv } from './csv';
+import { renderPdf } from './render-pdf';
+import { renderPng } from './render-png';
+import { renderSvg } from './render-svg';
+import { DEFAULT_ASPECT, figureSize, type FigureWidth, figureWidthSchema } from './widths';
+
+export const exportFormatSchema = z.enum(['svg', 'png', 'pdf', 'csv'], { error: 'format must be svg, png, pdf or csv' });
+export type ExportFormat = z.infer<typeof exportFormatSchema>;
+
+/**
+ * Query of an export request (`?format=pdf&width=two-column&units=physical&L=50&mass=0.067`): format (default pdf), journal
+ * width (default one column) and display units. Per-field messages on bad input.
+ */
+export const exportQuerySchema = z
+  .object({
+    format: exportFormatSchema.default('pdf'),
+    width: figureWidthSchema.default('one-column'),
+    units: z.string().optional(),
+    L: z.string().optional(),
+    mass: z.string().optional(),
+  })
+  .transform((q, ctx) => {
+    const units = displayUnitsQuerySchema.safeParse({ units: q.units, L: q.L, mass: q.mass });
+    if (!units.success) {
+      for (const issue of units.error.issues) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+      return z.NEVER;
+    }
+    return { format: q.format, width: q.width, units: units.data };
+  });
+export type ExportQuery = z.infer<typeof exportQuerySchema>;
+
+export interface ExportFigureInput {
+  kind: string;
+  /** The result data (diagnostics may be present; CSV leaves them out). */
+  result: unknown;
+  /** The task spec the result came from (walls, loops, exact levels). */
+  params?: unknown;
+  viewSpec?: unknown;
+  label: string;
+  /** Snapshot version for the file name (`<label>-v<version>.<ext>`); omitted for a live run. */
+  version?: number | null;
+  format: ExportFormat;
+  width?: FigureWidth;
+  units?: DisplayUnits;
+  title?: string;
+}
+
+export interface ExportedFile {
+  body: Buffer | string;
+  contentType: string;
+  fileName: string;
+}
+
+const CONTENT_TYPES: Record<ExportFormat, string> = {
+  svg: 'image/svg+xml; charset=utf-8',
+  png: 'image/png',
+  pdf: 'application/pdf',
+  csv: 'text/csv; charset=utf-8; header=present',
+};
+
+/**
+ * Export a figure. Charts are laid out at the column width in CSS px (8.6 cm = 325 px) so that 10-11 px labels print at
+ * 7.5-8 pt, then written as SVG (size in cm), PNG (300 dpi) or vector PDF (page = figure).
+ *
+ * @example
+ * const file = await exportFigure({ kind: 'degeneracy', result, params, label: 'gap-map', version: 2, format: 'pdf' })
+ * file.fileName // returns 'gap-map-v2.pdf'
+ */
+export async function exportFigure(input: ExportFigureInput): Promise<ExportedFile> {
+  const width = input.width ?? 'one-column';
+  const fileName = input.version ? snapshotFileName(input.label, input.version, input.format) : `${input.label}.${input.format}`;
+  if (input.format === 'csv') return { body: resultCsv(input.result), contentType: CONTENT_TYPES.csv, fileName };
+  const size = figureSize(width, DEFAULT_ASPECT);
+  const spec = chartSpecFor(input.kind, input.result, {
+    units: input.units ?? { system: 'dimensionless' },
+    params: input.params,
+    viewSpec: input.viewSpec,
+    width: Math.round(size.width.cssPx),
+    height: undefined,
+    fit: true,
+  });
+  if (input.format === 'svg') {
+    const { svg } = await renderSvg(spec, { width });
+    return { body: svg, contentType: CONTENT_TYPES.svg, fileName };
+  }
+  if (input.format === 'png') {
+    const { png } = await renderPng(spec, { width });
+    return { body: png, contentType: CONTENT_TYPES.png, fileName };
+  }
+  const { pdf } = await renderPdf(spec, { width, title: input.title ?? input.label });
+  return { body: pdf, contentType: CONTENT_TYPES.pdf, fileName };
+}

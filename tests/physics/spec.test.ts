@@ -1,0 +1,80 @@
+// Tests of the task spec schemas: defaults, per-field messages for invalid input, branch-aware union errors.
+// Messages are the ones written in lib/physics/spec/*.ts.
+import { describe, expect, it } from 'vitest';
+import { SpecError } from '@/lib/physics/errors';
+import { parseTaskSpec } from '@/lib/physics/spec';
+
+const disk = { disk: { center: [0, 0], radius: 1 } };
+
+function issues(input: unknown): { path: string; message: string }[] {
+  try {
+    parseTaskSpec(input);
+  } catch (error) {
+    expect(error).toBeInstanceOf(SpecError);
+    return (error as SpecError).issues;
+  }
+  throw new Error('expected a SpecError');
+}
+
+describe('parseTaskSpec', () => {
+  it('applies defaults', () => {
+    const s = parseTaskSpec({ task: 'spectrum', well: disk, grid: { h: 0.05 } });
+    expect(s).toMatchObject({ task: 'spectrum', levels: 6, tubes: [] });
+    const c = parseTaskSpec({ task: 'convergence', of: { well: disk, grid: { h: 0.1 } } });
+    expect(c).toMatchObject({ refinements: 3 });
+  });
+
+  it('accepts every well kind', () => {
+    const wells = [
+      disk,
+      { ellipse: { center: [0, 0], radii: [2, 1], angle: 30 } },
+      { rectangle: { min: [0, 0], max: [1, 2] } },
+      { polygon: { points: [[0, 0], [1, 0], [0, 1]] } },
+      { annulus: { center: [0, 0], radii: [0.5, 1] } },
+      { stadium: { center: [0, 0], length: 1, radius: 0.5, angle: 0 } },
+      { mask: { file: 'm.png', extent: { min: [0, 0], max: [1, 1] }, invert: true } },
+      { union: [disk, { difference: [disk, { disk: { center: [0, 0], radius: 0.5 } }] }] },
+    ];
+    for (const well of wells) expect(() => parseTaskSpec({ task: 'spectrum', well, grid: { h: 0.1 } })).not.toThrow();
+  });
+
+  it('reports every problem with its path', () => {
+    const found = issues({
+      task: 'spectrum',
+      well: { union: [disk, { annulus: { center: [0, 0], radii: [2, 1] } }] },
+      grid: { h: -1 },
+      tubes: [{ at: [0], alpha: 0.5 }],
+      levels: 100,
+    });
+    expect(found).toContainEqual({ path: 'well.union[1].annulus.radii', message: 'inner radius must be smaller than outer radius' });
+    expect(found).toContainEqual({ path: 'grid.h', message: 'grid spacing h must be positive' });
+    expect(found).toContainEqual({ path: 'levels', message: 'levels must be at most 64' });
+    expect(found.some((i) => i.path.startsWith('tubes[0].at'))).toBe(true);
+  });
+
+  it('explains wells, loops and tasks it does not know', () => {
+    expect(issues({ task: 'spectrum', well: { blob: {} }, grid: { h: 0.1 } })[0].message).toMatch(/one key of disk, ellipse/);
+    expect(issues({ task: 'spectrum', well: { disk: { center: [0, 0], radius: 0 } }, grid: { h: 0.1 } })).toEqual([
+      { path: 'well.disk.radius', message: 'radius must be positive' },
+    ]);
+    expect(issues({ task: 'nope' })[0]).toEqual({
+      path: 'task',
+      message: 'task must be one of spectrum, flux-sweep, position-sweep, holonomy, degeneracy, nodal-lines, convergence',
+    });
+    const loop = issues({ task: 'holonomy', well: disk, grid: { h: 0.1 }, moving: { alpha: 0.5 }, loop: { circle: { center: [0, 0], radius: -1 } } });
+    expect(loop).toContainEqual({ path: 'loop.circle.radius', message: 'radius must be positive' });
+  });
+
+  it('refuses unknown fields and bad shapes', () => {
+    expect(issues({ task: 'spectrum', well: disk, grid: { h: 0.1 }, levls: 3 })[0].path).toBe('');
+    expect(issues({ task: 'spectrum', well: { polygon: { points: [[0, 0], [1, 1]] } }, grid: { h: 0.1 } })[0]).toEqual({
+      path: 'well.polygon.points',
+      message: 'a polygon needs at least 3 points',
+    });
+    expect(issues({ task: 'spectrum', well: { rectangle: { min: [1, 0], max: [0, 1] } }, grid: { h: 0.1 } })[0]).toEqual({
+      path: 'well.rectangle.max',
+      message: 'min must be smaller than max on both axes',
+    });
+    expect(issues({ task: 'spectrum', well: disk, grid: { h: 0.1 }, potential: '' })[0].path).toBe('potential');
+  });
+});
