@@ -40,7 +40,7 @@ ensure_apt_package() {
     flock /tmp/fluxfolio-apt.lock apt-get update -q </dev/null || die "apt-get update failed"
     APT_UPDATED=1
   fi
-  flock /tmp/fluxfolio-apt.lock apt-get install -y -q --no-install-recommends "$package" </dev/null ||
+  flock /tmp/fluxfolio-apt.lock apt-get install -y -q -o DPkg::Lock::Timeout=300 "$package" </dev/null ||
     die "apt-get install $package failed"
   [ -e "$provides" ] || die "package $package installed but $provides is still missing"
 }

@@ -29,8 +29,8 @@ ensure_installed() {
   is_root || die "PostgreSQL server binaries not found in $PG_BIN; install the Debian package 'postgresql' (needs root)"
   log "PostgreSQL server binaries missing: installing Debian package 'postgresql' (apt-get)"
   export DEBIAN_FRONTEND=noninteractive
-  apt-get update -q
-  apt-get install -y -q --no-install-recommends postgresql </dev/null
+  flock /tmp/fluxfolio-apt.lock apt-get update -q </dev/null
+  flock /tmp/fluxfolio-apt.lock apt-get install -y -q --no-install-recommends -o DPkg::Lock::Timeout=300 postgresql </dev/null
   PG_BIN="$(find_pg_bin)"
   [ -x "$PG_BIN/initdb" ] || die "apt-get installed postgresql but $PG_BIN/initdb is still missing"
 }
@@ -85,6 +85,8 @@ check_db_name() {
 cmd_start() {
   ensure_installed
   ensure_user
+  # The postgres user may have just been created: decide where the data lives now that it exists.
+  PG_DATA="$(resolve_pgdata)"
   if ours_running; then
     log "already running on $PG_HOST:$PG_PORT (data $PG_DATA): nothing to do"
     write_marker reused; return 0

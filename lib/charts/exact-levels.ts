@@ -65,14 +65,15 @@ function gaussLegendre(f: (t: number) => number, a: number, b: number, panels: n
  * Both integrands are smooth; composite 16-point Gauss–Legendre with enough panels per oscillation.
  */
 function besselJIntegral(nu: number, x: number): number {
-  const panels1 = Math.max(16, Math.ceil((x + nu) / 2));
+  // The first integrand makes about (x + nu) / 2 oscillations on [0, pi]; 16 nodes resolve two per panel to rounding.
+  const panels1 = Math.max(6, Math.ceil((x + nu) / 4));
   const first = gaussLegendre((t) => Math.cos(nu * t - x * Math.sin(t)), 0, Math.PI, panels1) / Math.PI;
   const s = Math.sin(nu * Math.PI);
   if (Math.abs(s) < 1e-300) return first;
   // The second integrand is below e^-40 of its start beyond T with x sinh T + nu T = 40.
   let upper = 1;
   while (x * Math.sinh(upper) + nu * upper < 40) upper *= 1.5;
-  const second = gaussLegendre((t) => Math.exp(-x * Math.sinh(t) - nu * t), 0, upper, Math.max(16, Math.ceil(upper * 4)));
+  const second = gaussLegendre((t) => Math.exp(-x * Math.sinh(t) - nu * t), 0, upper, Math.max(8, Math.ceil(upper * 3)));
   return first - (s / Math.PI) * second;
 }
 
@@ -152,8 +153,12 @@ function brent(f: (x: number) => number, a: number, b: number, fa: number, fb: n
   return b;
 }
 
-/** Scan step for bracketing zeros: successive zeros of J_nu are more than 2.4 apart for nu >= 0 (DLMF 10.21(vi)). */
-const ZERO_SCAN_STEP = 0.2;
+/**
+ * Scan step for bracketing zeros. Successive positive zeros of J_nu (nu >= 0) are more than 3 apart (the spacing tends
+ * to pi, from below for nu < 1/2 and from above for nu > 1/2, and j_{0,2} - j_{0,1} = 3.115; DLMF 10.21(vi)), so a step of
+ * 1 never holds two zeros and every sign change brackets exactly one.
+ */
+const ZERO_SCAN_STEP = 1;
 
 /**
  * The first `count` positive zeros j_{nu,1} < j_{nu,2} < … of J_nu, or all zeros below `below` when given.
@@ -195,6 +200,29 @@ export interface ExactLevel {
   energy: number;
   /** Disk: angular momentum m and radial index n (j_{|m - alpha|, n}); rectangle: the two mode numbers. */
   quantum: { m: number; n: number; nu?: number };
+}
+
+/**
+ * Every level of a disk with a centred tube below `energyMax` (units ħ²/(2mL²)), with its quantum numbers, ascending.
+ *
+ * @example diskLevelsBelow(0, 1, 15).map((l) => l.quantum.m) // returns [0, -1, 1] (j01², then j11² twice)
+ */
+export function diskLevelsBelow(alpha: number, radius: number, energyMax: number): ExactLevel[] {
+  if (!Number.isFinite(alpha)) throw new RangeError(`alpha must be finite, got ${alpha}`);
+  if (!(radius > 0)) throw new RangeError(`radius must be positive, got ${radius}`);
+  if (!(energyMax > 0) || !Number.isFinite(energyMax)) return [];
+  const limit = Math.sqrt(energyMax) * radius;
+  const centre = Math.round(alpha);
+  const found: ExactLevel[] = [];
+  for (let dm = 0; dm <= limit + 1; dm++) {
+    for (const m of dm === 0 ? [centre] : [centre - dm, centre + dm]) {
+      const nu = Math.abs(m - alpha);
+      if (nu >= limit) continue;
+      besselJZeros(nu, 200, limit).forEach((j, i) => found.push({ energy: (j * j) / (radius * radius), quantum: { m, n: i + 1, nu } }));
+    }
+  }
+  found.sort((p, q) => p.energy - q.energy || p.quantum.m - q.quantum.m);
+  return found;
 }
 
 /**

@@ -30,7 +30,7 @@ function union(a: Extent, b: Extent | null): Extent {
 /**
  * Vega-Lite spec of a degeneracy result.
  *
- * @param result - `{ gapMap: { xs, ys, gap (flat, x fastest) }, points: [{ at, gap }], tubes, count, parity }`
+ * @param result - `{ gapMap: { xs, ys, gap (flat, x fastest) }, points: [{ at, gap }], region, tubes, count, parity }`
  * @param options - units, size; `params` (the degeneracy spec) for the wall and the region loop
  */
 export function gapMapSpec(result: unknown, options: ChartOptions = {}): ChartSpec {
@@ -48,7 +48,8 @@ export function gapMapSpec(result: unknown, options: ChartOptions = {}): ChartSp
   const params = options.params;
   const wellOk = isRecord(params) && isRecord(params.well);
   if (wellOk) extent = union(extent, outlinesExtent(wellOutlines(params.well as never)));
-  const region = isRecord(params) && isRecord(params.region) ? params.region : null;
+  // The scanned region: as asked for, or as the solver reports it (the well's bounding box by default).
+  const region = isRecord(params) && isRecord(params.region) ? params.region : isRecord(r.region) ? r.region : null;
   const regionLoop = region
     ? (() => {
         const min = point(region.min, 'region.min');

@@ -1,12 +1,14 @@
 // Spectral flow chart: levels versus the flux alpha of one tube, one line per tracked level (Okabe–Ito colours), with the
 // exact levels of a disk with the swept tube at its centre (Bessel zeros) drawn dashed over them when they exist.
 import { energyAxisTitle, energyScale, FLUX_AXIS_TITLE } from '@/lib/units';
-import { diskLevelEnergy, diskLevels, exactCaseFor } from './exact-levels';
+import { diskLevelsBelow, exactCaseFor } from './exact-levels';
 import { baseSpec, type ChartOptions, type ChartSpec, tidy, unitsOf } from './common';
 import { asRecord, ChartDataError, curvesOver, isRecord, numberList, numberMatrix, pick, point, type Json } from './read-result';
 
 /** At most this many flux values are used for the exact overlay (the curves are smooth; each point costs a Bessel root search). */
-const EXACT_SAMPLES = 81;
+const EXACT_SAMPLES = 61;
+/** Exact curves are drawn up to this factor times the highest computed level. */
+const EXACT_WINDOW = 1.15;
 
 interface SweepParams {
   well: unknown;
@@ -16,7 +18,7 @@ interface SweepParams {
 }
 
 /** The exact overlay for a sweep, or null: the well must be a disk and the swept tube sit at its centre (see exactCaseFor). */
-function exactCurves(params: unknown, result: Json, alphas: number[], levelCount: number): { label: string; points: { alpha: number; E: number }[] }[] | null {
+function exactCurves(params: unknown, result: Json, alphas: number[], levelCount: number, energyMax: number): { label: string; points: { alpha: number; E: number }[] }[] | null {
   if (!isRecord(params) || !isRecord(params.well)) return null;
   const p = params as unknown as SweepParams;
   const swept = typeof result.tube === 'number' ? result.tube : (p.sweep?.tube ?? 0);
@@ -31,16 +33,27 @@ function exactCurves(params: unknown, result: Json, alphas: number[], levelCount
   const picked: number[] = [];
   for (let i = 0; i < alphas.length; i += stride) picked.push(i);
   if (picked[picked.length - 1] !== alphas.length - 1) picked.push(alphas.length - 1);
-  // Every (m, n) that is among the lowest levels somewhere in the sweep, followed over the whole sweep.
-  const pairs = new Map<string, { m: number; n: number }>();
+  // All exact levels inside the plotted energy window at each sampled flux, joined into curves by (m, n); only the pairs
+  // that are among the lowest `levelCount` somewhere in the sweep are drawn. A curve E_{m,n}(alpha) is V-shaped around
+  // alpha = m, so the part inside the window is one piece.
+  const curves = new Map<string, { m: number; n: number; points: { alpha: number; E: number }[]; low: boolean }>();
   for (const i of picked) {
-    for (const l of diskLevels(base.alpha + alphas[i], base.radius, levelCount)) pairs.set(`${l.quantum.m},${l.quantum.n}`, { m: l.quantum.m, n: l.quantum.n });
+    const levels = diskLevelsBelow(base.alpha + alphas[i], base.radius, energyMax);
+    levels.forEach((l, rank) => {
+      const key = `${l.quantum.m},${l.quantum.n}`;
+      let curve = curves.get(key);
+      if (!curve) {
+        curve = { m: l.quantum.m, n: l.quantum.n, points: [], low: false };
+        curves.set(key, curve);
+      }
+      curve.points.push({ alpha: alphas[i], E: l.energy });
+      if (rank < levelCount) curve.low = true;
+    });
   }
-  const sortedPairs = Array.from(pairs.values()).sort((a, b) => a.n - b.n || a.m - b.m);
-  return sortedPairs.map(({ m, n }) => ({
-    label: `m = ${m}, n = ${n}`,
-    points: picked.map((i) => ({ alpha: alphas[i], E: diskLevelEnergy(m, n, base.alpha + alphas[i], base.radius) })),
-  }));
+  return Array.from(curves.values())
+    .filter((c) => c.low)
+    .sort((a, b) => a.n - b.n || a.m - b.m)
+    .map((c) => ({ label: `m = ${c.m}, n = ${c.n}`, points: c.points }));
 }
 
 /**
@@ -64,7 +77,10 @@ export function spectralFlowSpec(result: unknown, options: ChartOptions = {}): C
       if (Number.isFinite(e)) values.push({ alpha: alphas[i], E: tidy(e * scale), level, source: 'lattice' });
     }),
   );
-  const exact = exactCurves(options.params, r, alphas, curves.length);
+  let highest = 0;
+  for (const curve of curves) for (const e of curve) if (Number.isFinite(e)) highest = Math.max(highest, e);
+  // Exact curves are drawn up to a little above the highest computed level (the plotted window).
+  const exact = exactCurves(options.params, r, alphas, curves.length, highest * EXACT_WINDOW);
   if (exact) {
     for (const curve of exact) {
       for (const p of curve.points) values.push({ alpha: p.alpha, E: tidy(p.E * scale), level: curve.label, source: 'exact (Bessel zeros)' });

@@ -52,7 +52,8 @@ export function spectrumSpec(result: unknown, options: ChartOptions = {}): Chart
       }
     }
   }
-  const encodingX = { field: 'column', type: 'nominal', title: null, axis: { labelAngle: 0 } };
+  const columns = Array.from(new Set(values.map((v) => v.column as string)));
+  const encodingX = { field: 'column', type: 'nominal', title: null, axis: { labelAngle: 0 }, sort: columns };
   const encodingY = { field: 'E', type: 'quantitative', title: energyAxisTitle(units), scale: { zero: false } };
   return baseSpec(options, {
     data: { values },
@@ -71,7 +72,7 @@ export function spectrumSpec(result: unknown, options: ChartOptions = {}): Chart
         },
       },
       {
-        mark: { type: 'text', align: 'left', dx: 4, fontSize: 10, xOffset: 0 },
+        mark: { type: 'text', align: 'center', baseline: 'bottom', dy: -3, fontSize: 10 },
         encoding: { x: encodingX, y: encodingY, text: { field: 'label' } },
       },
     ],

@@ -93,6 +93,9 @@ export function isIdentityMap(map: GaugeMap): boolean {
  * @param map - the gauge map of one step
  * @param block - states in the gauge of the step's start
  * @returns G block, in the gauge of the step's end
+ * @example
+ * // Warm start for the next tube position of a scan:
+ * const initial = applyGaugeMap(gaugeMapForStep(lattice, { from: [a, b], to: [a, b + 1] }, alpha), previous.vectors);
  */
 export function applyGaugeMap(map: GaugeMap, block: StateBlock): StateBlock {
   const { n, k } = block;
@@ -121,6 +124,9 @@ export function applyGaugeMap(map: GaugeMap, block: StateBlock): StateBlock {
  * @param psi - states at the step's start (column i used)
  * @param phi - states at the step's end (column j used)
  * @returns the complex overlap
+ * @see PHYSICS.md section 3 (W = prod_k <psi_k | G_k^dagger psi_{k+1}>)
+ * @example
+ * const z = gaugedOverlap(gaugeMapForStep(lattice, step, 0.5), psiK, 0, psiNext, 0); // about +-1 for a slow step
  */
 export function gaugedOverlap(map: GaugeMap, psi: StateBlock, i: number, phi: StateBlock, j: number): Complex {
   const { n } = psi;

@@ -70,7 +70,11 @@ export function signedArea2(points: readonly Vec2[]): number {
   return s;
 }
 
-/** The sites strictly inside a loop curve, as global (I, J), sorted by J then I. */
+/**
+ * The sites strictly inside a loop curve (more than 1e-9 L from it), as global (I, J), sorted by J then I.
+ * @example
+ * sitesInsideLoop({ circle: { center: [0, 0], radius: 0.1 } }, { h: 0.1, offset: [0, 0] }); // [[-1, -1], [0, -1], [-1, 0], [0, 0]]
+ */
 export function sitesInsideLoop(loop: LoopSpec, grid: GridGeometry): [number, number][] {
   let minX: number;
   let minY: number;
@@ -112,7 +116,11 @@ export function sitesInsideLoop(loop: LoopSpec, grid: GridGeometry): [number, nu
   return sites;
 }
 
-/** Why a set of sites has no simple boundary, or null when it has one. */
+/**
+ * Why a set of sites has no simple boundary (empty, not 4-connected, or holed), or null when it has one.
+ * @example
+ * siteSetProblem([[0, 0], [1, 1]]); // 'encloses grid sites that are not connected (...)'
+ */
 export function siteSetProblem(sites: readonly [number, number][]): string | null {
   if (sites.length === 0) return 'encloses no grid site (make it larger than the grid spacing)';
   const set = new Set(sites.map(([i, j]) => siteKey(i, j)));

@@ -109,6 +109,7 @@ describe('figure notes in the browser', () => {
     // Read: the block has not run yet; start a run from the note and watch it.
     await page.goto(`${base()}/notes/${noteSlug}`);
     const block = page.locator(`[data-figure="${label}"]`);
+    await block.locator('[data-testid="run-panel"][data-ready]').waitFor();
     await block.getByTestId('run-button').click();
     await block.getByTestId('run-progress').waitFor();
     await block.locator('[data-testid="chart"] svg').first().waitFor({ timeout: RUN_TIMEOUT });
@@ -116,6 +117,7 @@ describe('figure notes in the browser', () => {
 
     // Figure page: freeze the finished run as v1.
     await page.goto(`${base()}/figures/${label}`);
+    await page.locator('[data-testid="run-panel"][data-ready]').waitFor();
     await page.getByTestId('freeze-button').click();
     await expect.poll(async () => page.getByTestId('frozen-message').textContent()).toMatch(/v1/);
     const v1Href = await page.getByTestId('frozen-message').locator('a').getAttribute('href');

@@ -4,7 +4,7 @@ import { PNG } from 'pngjs';
 import { inflateSync } from 'node:zlib';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { defaultViewSpec, type ChartSpec } from '@/lib/charts';
-import { renderPdf } from '@/lib/export/render-pdf';
+import { renderPdf, solidifyZeroDashes } from '@/lib/export/render-pdf';
 import { renderPng, svgToPng } from '@/lib/export/render-png';
 import { renderSvg } from '@/lib/export/render-svg';
 import { exportFigure, exportQuerySchema } from '@/lib/export/export-figure';
@@ -108,6 +108,10 @@ describe('PDF', () => {
     // Path construction and stroke operators of the chart lines: vector graphics.
     expect(text).toMatch(/\d l\n/);
     expect(text).toMatch(/\bS\n/);
+  });
+
+  it('zero-length dash patterns (solid in SVG) are drawn solid', () => {
+    expect(solidifyZeroDashes('<path stroke-dasharray="1,0" d="M0"/><path stroke-dasharray="4,3"/>')).toBe('<path d="M0"/><path stroke-dasharray="4,3"/>');
   });
 
   it('is byte-for-byte reproducible with the fixed metadata date', async () => {

@@ -2,6 +2,7 @@
 // meV nm², CODATA), the shared zod schema for the switch, and the query-string form used by the export API.
 import { describe, expect, it } from 'vitest';
 import {
+  describeUnits,
   DIMENSIONLESS,
   displayUnitsQuerySchema,
   displayUnitsSchema,
@@ -58,5 +59,10 @@ describe('units', () => {
     if (bad.success) return;
     expect(bad.error.issues[0].path).toEqual(['L']);
     expect(displayUnitsQuerySchema.safeParse({ units: 'furlongs' }).success).toBe(false);
+  });
+
+  it('one-line statement for notes', () => {
+    expect(describeUnits(DIMENSIONLESS)).toBe('Lengths in L, energies in ħ²/2mL², flux in flux quanta h/e.');
+    expect(describeUnits(gaas50)).toMatch(/^Lengths in nm \(L = 50 nm\), energies in meV \(m\*\/mₑ = 0\.067, ħ²\/2m\*L² = 0\.2275 meV\)/);
   });
 });

@@ -32,6 +32,22 @@ describe('degeneracy of the unit disk (Longuet-Higgins 1975; PHYSICS.md section 
     expect(r.diagnostics.unconverged).toBe(0);
   });
 
+  it('scans the plaquette centres inside a given region; the parity follows the loop around it', async () => {
+    const around = await runDegeneracy(spec({ well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 1 / 10 }, region: { min: [-0.35, -0.35], max: [0.35, 0.35] } }));
+    expect(around.region.min[0]).toBeCloseTo(-0.3, 12);
+    expect(around.region.max[1]).toBeCloseTo(0.3, 12);
+    expect(around.gapMap.xs).toHaveLength(7);
+    expect(around.count).toBe(1);
+    expect(around.regionSign).toBe(-1);
+    expect(around.parityConsistent).toBe(true);
+    const beside = await runDegeneracy(spec({ well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 1 / 10 }, region: { min: [0.2, 0.1], max: [0.6, 0.5] } }));
+    expect(beside.count).toBe(0);
+    expect(beside.parity).toBe('even');
+    expect(beside.loopProduct).toBe(1);
+    expect(beside.regionSign).toBe(1);
+    expect(beside.parityConsistent).toBe(true);
+  });
+
   it('refines an off-grid point with the gap^2 fit when the disk centre is not a plaquette centre', async () => {
     const r = await runDegeneracy(spec({ well: { disk: { center: [0.03, -0.02], radius: 1 } }, grid: { h: 1 / 10 } }));
     expect(r.count).toBe(1);

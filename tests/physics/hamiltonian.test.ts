@@ -133,3 +133,22 @@ describe('flux symmetries (Byers & Yang 1961)', () => {
     for (let i = 0; i < 10; i++) expect(sum[i]).toBeCloseTo(single[i], 9);
   });
 });
+
+describe('tubes outside the well', () => {
+  it('a tube left of a simply connected well (its cut crossing the well) leaves the spectrum unchanged', () => {
+    const none = spectrum(buildHamiltonian(disk, []));
+    for (const alpha of [0.3, 0.5]) {
+      const left = spectrum(buildHamiltonian(disk, [snapTube(disk, [-1.6, 0.1], alpha)]));
+      for (let i = 0; i < 8; i++) expect(left[i]).toBeCloseTo(none[i], 9);
+    }
+  });
+
+  it('a tube in the hole of an annulus shifts the levels (Aharonov & Bohm 1959), with period 1', () => {
+    const ring = buildLattice({ well: compileWell({ annulus: { center: [0, 0], radii: [0.4, 1] } }), h });
+    const none = spectrum(buildHamiltonian(ring, []));
+    const half = spectrum(buildHamiltonian(ring, [snapTube(ring, [0, 0], 0.5)]));
+    const whole = spectrum(buildHamiltonian(ring, [snapTube(ring, [0, 0], 1)]));
+    expect(half[0] - none[0]).toBeGreaterThan(0.5);
+    for (let i = 0; i < 8; i++) expect(whole[i]).toBeCloseTo(none[i], 9);
+  });
+});

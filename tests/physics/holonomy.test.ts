@@ -2,7 +2,7 @@
 // (Longuet-Higgins 1975; Berry 1984), the phase -2 pi alpha of a charge enclosed by a counter-clockwise loop at a generic
 // flux (Berry 1984), its conjugate clockwise, and |W| = 1 for loops that stay outside the well.
 import { describe, expect, it } from 'vitest';
-import { SpecError } from '@/lib/physics/errors';
+import { AbortError, SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/spec';
 import type { HolonomySpec } from '@/lib/physics/spec/holonomy';
 import { runHolonomy } from '@/lib/physics/tasks/holonomy';
@@ -80,5 +80,21 @@ describe('holonomy at a generic flux (Berry 1984: phase of a charge carried arou
 
   it('refuses a loop that encloses no grid site', async () => {
     await expect(runHolonomy(spec({ loop: { circle: { center: [0, 0], radius: 0.02 } } }))).rejects.toBeInstanceOf(SpecError);
+  });
+
+  it('reports progress up to 1 and cancels with AbortError', async () => {
+    const fractions: number[] = [];
+    await runHolonomy(spec({ loop: { circle: { center: [2.5, 0.5], radius: 0.3 } } }), { onProgress: (f) => fractions.push(f) });
+    expect(fractions[0]).toBe(0);
+    expect(fractions[fractions.length - 1]).toBe(1);
+    for (let i = 1; i < fractions.length; i++) expect(fractions[i]).toBeGreaterThanOrEqual(fractions[i - 1]);
+    const controller = new AbortController();
+    const pending = runHolonomy(spec({ loop: { circle: { center: [0, 0], radius: 1.3 } } }), {
+      signal: controller.signal,
+      onProgress: (f) => {
+        if (f > 0.1) controller.abort();
+      },
+    });
+    await expect(pending).rejects.toBeInstanceOf(AbortError);
   });
 });

@@ -5,24 +5,24 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
 import { RUN_QUEUE } from '@/lib/jobs/queue';
-import { addMember, APP_URL, createPasswordUser, signIn, type ApiClient } from './api-session';
-import { createWorld, SMALL_SPECTRUM, waitFor, type TestWorld } from './fixtures';
+import { signInWithPassword, type AppClient } from '../helpers/app';
+import { createTestTeam, type TestTeam } from '../helpers/db';
+import { SMALL_SPECTRUM, waitFor } from './fixtures';
 import { startWorker, type WorkerProcess } from './worker-process';
 
-let world: TestWorld;
-let author: ApiClient;
-let coauthor: ApiClient;
-let outsider: ApiClient;
+let team: TestTeam;
+let author: AppClient;
+let coauthor: AppClient;
+let outsider: AppClient;
 let worker: WorkerProcess | null = null;
 const ids: { figure?: string; run?: string; snapshot?: string; note?: string } = {};
 
-describe.skipIf(!APP_URL)('figure-notes API', () => {
+describe.skipIf(!process.env.APP_URL)('figure-notes API', () => {
   beforeAll(async () => {
-    world = await createWorld('owner');
-    const [a, c, o] = await Promise.all([createPasswordUser(), createPasswordUser(), createPasswordUser()]);
-    await addMember(world.manuscript.id, a.id, 'author');
-    await addMember(world.manuscript.id, c.id, 'coauthor');
-    [author, coauthor, outsider] = await Promise.all([signIn(a), signIn(c), signIn(o)]);
+    team = await createTestTeam({ title: 'Runs API' });
+    [author, coauthor, outsider] = await Promise.all(
+      [team.author, team.coauthor, team.outsider].map((user) => signInWithPassword(user.email, user.password)),
+    );
     // The app queues on its default queue; this worker serves it (another worker of the test run may too).
     worker = startWorker(process.env.FLUXFOLIO_APP_RUN_QUEUE ?? RUN_QUEUE);
     await worker.waitForLine(/ready: queue/);
@@ -37,7 +37,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
   });
 
   it('refuses unsafe MDX at save time with a message naming the line', async () => {
-    const created = await author.fetch(`/api/manuscripts/${world.manuscript.id}/notes`, {
+    const created = await author.fetch(`/api/manuscripts/${team.manuscript.id}/notes`, {
       method: 'POST',
       json: { title: 'Spectral flow', source: 'Intro with $\\alpha$.\n\n<Figure label="flow" />\n' },
     });
@@ -69,7 +69,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
   });
 
   it('creates a figure, runs it, freezes v1 and serves the bundle', async () => {
-    const bad = await author.fetch(`/api/manuscripts/${world.manuscript.id}/figures`, {
+    const bad = await author.fetch(`/api/manuscripts/${team.manuscript.id}/figures`, {
       method: 'POST',
       json: { label: 'flow', kind: 'spectrum', params: { ...SMALL_SPECTRUM, grid: { h: -1 } } },
     });
@@ -77,7 +77,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
     expect(((await bad.json()) as { fields: Record<string, string[]> }).fields['params.grid.h']).toBeTruthy();
 
     const params = { ...SMALL_SPECTRUM, grid: { h: 0.1, offset: [0.043, 0.011] } };
-    const created = await author.fetch(`/api/manuscripts/${world.manuscript.id}/figures`, {
+    const created = await author.fetch(`/api/manuscripts/${team.manuscript.id}/figures`, {
       method: 'POST',
       json: { label: 'flow', kind: 'spectrum', caption: 'Levels', params },
     });
@@ -121,7 +121,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
   });
 
   it('lets a coauthor read but not edit, run or freeze', async () => {
-    expect((await coauthor.fetch(`/api/manuscripts/${world.manuscript.id}/figures`)).status).toBe(200);
+    expect((await coauthor.fetch(`/api/manuscripts/${team.manuscript.id}/figures`)).status).toBe(200);
     expect((await coauthor.fetch(`/api/figures/${ids.figure}`)).status).toBe(200);
     expect((await coauthor.fetch(`/api/snapshots/${ids.snapshot}`)).status).toBe(200);
     expect((await coauthor.fetch(`/api/figures/${ids.figure}/runs`, { method: 'POST' })).status).toBe(403);
@@ -132,7 +132,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
       (await coauthor.fetch(`/api/notes/${ids.note}`, { method: 'PUT', json: { title: 't', source: 'changed' } })).status,
     ).toBe(403);
     expect(
-      (await coauthor.fetch(`/api/manuscripts/${world.manuscript.id}/figures`, {
+      (await coauthor.fetch(`/api/manuscripts/${team.manuscript.id}/figures`, {
         method: 'POST',
         json: { label: 'x', kind: 'spectrum', params: SMALL_SPECTRUM },
       })).status,
@@ -147,7 +147,7 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
       [`/api/snapshots/${ids.snapshot}`, `/api/snapshots/${unknown}`],
       [`/api/snapshots/${ids.snapshot}/bundle`, `/api/snapshots/${unknown}/bundle`],
       [`/api/notes/${ids.note}`, `/api/notes/${unknown}`],
-      [`/api/manuscripts/${world.manuscript.id}/figures`, `/api/manuscripts/${unknown}/figures`],
+      [`/api/manuscripts/${team.manuscript.id}/figures`, `/api/manuscripts/${unknown}/figures`],
     ]) {
       const a = await outsider.fetch(foreign);
       const b = await outsider.fetch(missing);
@@ -156,6 +156,6 @@ describe.skipIf(!APP_URL)('figure-notes API', () => {
       expect(await a.json()).toEqual(await b.json());
     }
     expect((await outsider.fetch('/api/figures/not-a-uuid')).status).toBe(400);
-    expect((await fetch(`${APP_URL}/api/figures/${ids.figure}`)).status).toBe(401);
+    expect((await fetch(`${process.env.APP_URL}/api/figures/${ids.figure}`)).status).toBe(401);
   });
 });

@@ -16,13 +16,16 @@ export const SMALL_SPECTRUM = {
   levels: 4,
 } as const;
 
-/** A spectral flow that takes a few seconds (40 flux steps, ~1,300 unknowns): long enough to cancel or kill mid-run. */
+/**
+ * A spectral flow that takes a few seconds (120 flux steps, ~800 unknowns): long enough to cancel or kill mid-run, with
+ * many short steps so the solver yields to the event loop (progress writes, cancel checks) often.
+ */
 export const SLOW_FLUX_SWEEP = {
   task: 'flux-sweep',
   well: { disk: { center: [0, 0], radius: 1 } },
-  grid: { h: 1 / 20 },
-  tubes: [{ at: [0.2, 0.1], alpha: 0 }],
-  sweep: { tube: 0, from: 0, to: 1, steps: 40 },
+  grid: { h: 1 / 16 },
+  tubes: [{ at: [0.25, 0.125], alpha: 0 }],
+  sweep: { tube: 0, from: 0, to: 1, steps: 120 },
   levels: 4,
 } as const;
 

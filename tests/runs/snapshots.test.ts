@@ -38,10 +38,10 @@ async function bundleOf(snapshot: Snapshot): Promise<SnapshotBundle> {
 async function expectDatabaseRefusal(query: PromiseLike<unknown>): Promise<void> {
   const error = await Promise.resolve(query).then(
     () => null,
-    (e: unknown) => e as Error & { cause?: Error & { code?: string } },
+    (e: unknown) => e as Error & { code?: string; cause?: Error & { code?: string } },
   );
   expect(error).not.toBeNull();
-  const cause = error?.cause ?? error;
+  const cause: (Error & { code?: string }) | null = error?.cause ?? error;
   expect(cause?.message).toMatch(/snapshots are immutable \((UPDATE|DELETE) refused/);
   expect(cause?.code).toBe('23000');
 }

@@ -42,6 +42,9 @@ export function RunPanel({ figureId, initialRun, canRun, canFreeze, onResult, on
   const [problem, setProblem] = useState<string | null>(null);
   const [frozen, setFrozen] = useState<{ id: string; version: number } | null>(null);
   const reported = useRef<string | null>(initialRun?.status === 'succeeded' ? initialRun.id : null);
+  // Marks the panel as interactive once hydrated (browser tests wait for it before clicking).
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
 
   useEffect(() => {
     if (polled && polled.status === 'succeeded' && result && reported.current !== polled.id) {
@@ -77,7 +80,7 @@ export function RunPanel({ figureId, initialRun, canRun, canFreeze, onResult, on
   const active = isActive(run?.status);
   const tone = run?.status === 'failed' ? 'failed' : run?.status === 'cancelled' ? 'cancelled' : run?.status === 'succeeded' ? 'done' : 'active';
   return (
-    <div className={compact ? 'space-y-2' : 'space-y-3'} data-testid="run-panel">
+    <div className={compact ? 'space-y-2' : 'space-y-3'} data-testid="run-panel" data-ready={ready || undefined}>
       {run ? (
         <div aria-live="polite">
           <ProgressBar

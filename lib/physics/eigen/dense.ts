@@ -4,10 +4,13 @@ import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { csrMatVecColumns, toDense } from '../csr';
 import type { CsrMatrix, EigenResult } from '../types';
 
-/** Eigenvalues of the embedding closer than this times the largest |eigenvalue| belong to one cluster. */
-const PAIR_CLUSTER_RTOL = 1e-12;
-/** A candidate complex vector is accepted in a cluster while its remaining squared norm exceeds this. */
-const PIVOT_MIN_NORM2 = 0.25;
+/** Eigenvalues of the embedding closer than this times the largest |eigenvalue| are searched together for pairs. */
+const PAIR_GROUP_RTOL = 1e-8;
+/**
+ * A candidate carries a new complex direction when its squared norm left after projection exceeds this (a copy
+ * i z of an accepted z leaves ~1e-30; a new direction, picked by pivoting, leaves at least ~2 / (group size)).
+ */
+const NEW_DIRECTION_MIN_NORM2 = 1e-6;
 
 export interface DenseEigen {
   /** Ascending eigenvalues (length n). */
@@ -43,8 +46,8 @@ export function symmetricEigen(a: Float64Array, n: number): DenseEigen {
 /**
  * All eigenpairs of a complex Hermitian matrix A + iB (row-major n x n arrays), through the real symmetric
  * embedding M = [[A, -B], [B, A]]. An eigenvector (u; v) of M gives the eigenvector u + iv of A + iB; each complex
- * eigenvector appears twice in M (as z and iz), so within each cluster of equal eigenvalues we keep half of them,
- * chosen by pivoted complex Gram-Schmidt (robust for degenerate levels).
+ * eigenvector appears twice in M (as z and iz), so within each group of (nearly) equal eigenvalues pivoted complex
+ * Gram-Schmidt keeps exactly the new complex directions (robust for degenerate levels and noisy pairs).
  * @example
  * hermitianEigen(new Float64Array([1, 0, 0, 1]), new Float64Array([0, -1, 1, 0]), 2).values; // [0, 2]
  */
@@ -70,21 +73,24 @@ export function hermitianEigen(re: Float64Array, im: Float64Array | null, n: num
   let found = 0;
   let start = 0;
   while (start < n2 && found < n) {
+    // A group: a chain of eigenvalues closer than the (loose) window. Exact pairs z, iz always fall in one group;
+    // distinct eigenvalues sharing a group are not mixed, since their complex overlaps vanish.
     let end = start + 1;
-    while (end < n2 && big.values[end] - big.values[end - 1] <= PAIR_CLUSTER_RTOL * scale) end++;
-    const want = Math.min(Math.ceil((end - start) / 2), n - found);
-    // Candidates: complex vectors from the cluster's real eigenvectors.
+    while (end < n2 && big.values[end] - big.values[end - 1] <= PAIR_GROUP_RTOL * scale) end++;
     const cr: Float64Array[] = [];
     const ci: Float64Array[] = [];
+    const lambda: number[] = [];
     for (let w = start; w < end; w++) {
       cr.push(big.vectorsRe.slice(w * n2, w * n2 + n));
       ci.push(big.vectorsRe.slice(w * n2 + n, w * n2 + n2));
+      lambda.push(big.values[w]);
     }
     const norm2 = cr.map((v, l) => dotRe(v, ci[l], v, ci[l]));
-    for (let t = 0; t < want; t++) {
+    // Pivoted complex Gram-Schmidt: take the candidate with the most new direction while one is left.
+    for (;;) {
       let pick = -1;
-      for (let l = 0; l < cr.length; l++) if (pick < 0 || norm2[l] > norm2[pick]) pick = l;
-      if (pick < 0 || norm2[pick] < PIVOT_MIN_NORM2) break;
+      for (let l = 0; l < cr.length; l++) if (norm2[l] >= 0 && (pick < 0 || norm2[l] > norm2[pick])) pick = l;
+      if (pick < 0 || norm2[pick] < NEW_DIRECTION_MIN_NORM2 || found >= n) break;
       const s = 1 / Math.sqrt(norm2[pick]);
       const zr = cr[pick];
       const zi = ci[pick];
@@ -108,7 +114,7 @@ export function hermitianEigen(re: Float64Array, im: Float64Array | null, n: num
         }
         norm2[l] = dotRe(cr[l], ci[l], cr[l], ci[l]);
       }
-      values[found] = 0.5 * (big.values[start + 2 * t] + big.values[Math.min(start + 2 * t + 1, end - 1)]);
+      values[found] = lambda[pick];
       vectorsRe.set(zr, found * n);
       vectorsIm.set(zi, found * n);
       found++;
@@ -116,7 +122,15 @@ export function hermitianEigen(re: Float64Array, im: Float64Array | null, n: num
     start = end;
   }
   if (found < n) throw new Error(`hermitianEigen: recovered ${found} of ${n} eigenvectors from the real embedding`);
-  return { values, vectorsRe, vectorsIm };
+  // Pivoting may pick within a group out of order: sort ascending (stable).
+  const order = Array.from(values.keys()).sort((p, q) => values[p] - values[q] || p - q);
+  const sorted: DenseEigen = { values: new Float64Array(n), vectorsRe: new Float64Array(n * n), vectorsIm: new Float64Array(n * n) };
+  order.forEach((src, j) => {
+    sorted.values[j] = values[src];
+    sorted.vectorsRe.set(vectorsRe.subarray(src * n, (src + 1) * n), j * n);
+    (sorted.vectorsIm as Float64Array).set(vectorsIm.subarray(src * n, (src + 1) * n), j * n);
+  });
+  return sorted;
 }
 
 /** Re <a, b> for complex vectors given as (re, im) pairs. */

@@ -339,8 +339,8 @@ function checkPattern(matrix: Pick<CsrMatrix, 'n' | 'rowPtr' | 'colIdx'>): void 
 }
 
 /** Relaxed amalgamation thresholds (pivots per supernode, largest fraction of explicit zeros): CHOLMOD's defaults. */
-const RELAX_COLUMNS = process.env.RC ? JSON.parse(process.env.RC) : [4, 16, 48];
-const RELAX_ZEROS = process.env.RZ ? JSON.parse(process.env.RZ) : [0.8, 0.1, 0.05];
+const RELAX_COLUMNS = [4, 16, 48];
+const RELAX_ZEROS = [0.8, 0.1, 0.05];
 
 /**
  * Supernode boundaries: fundamental supernodes, then a chain of supernodes is merged into its parent when the

@@ -98,7 +98,6 @@ export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: Shi
   let reported = 0;
   while (true) {
     const worst = maxRelative(best.residualNorms, best.values, k);
-    if (process.env.SI_DEBUG) console.log("it", iterations, space.size, Array.from(best.residualNorms).map((r, j) => (r / Math.max(1, best.values[j])).toExponential(1)).join(" "));
     if (firstResidual < 0) firstResidual = Math.max(worst, tol * 10);
     if (options.onProgress) {
       const fraction = Math.min(1, Math.max(reported, Math.log(firstResidual / Math.max(worst, tol)) / Math.log(firstResidual / tol)));

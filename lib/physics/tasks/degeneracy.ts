@@ -26,7 +26,6 @@ import {
   taskMethod,
   progressReporter,
   runtimeFacts,
-  type ScanTuning,
   type TaskRunContext,
   tubeReport,
 } from './task-support';
@@ -99,15 +98,19 @@ export interface DegeneracyResult {
   };
 }
 
-/** Plaquette index range covering [lo, hi] outward (centres at (a + 1 + f) h). */
-function plaquetteRange(lo: number, hi: number, h: number, f: number): [number, number] {
+/**
+ * Plaquette index range for [lo, hi] (centres at (a + 1 + f) h): the centres inside it (inclusive), or, outward, the
+ * smallest range whose centres reach lo and hi.
+ */
+function plaquetteRange(lo: number, hi: number, h: number, f: number, outward: boolean): [number, number] {
   const slack = 1e-9;
-  return [Math.floor(lo / h - 1 - f + slack), Math.ceil(hi / h - 1 - f - slack)];
+  if (outward) return [Math.floor(lo / h - 1 - f + slack), Math.ceil(hi / h - 1 - f - slack)];
+  return [Math.ceil(lo / h - 1 - f - slack), Math.floor(hi / h - 1 - f + slack)];
 }
 
 /**
  * Scans a moving tube (integer or half-integer flux) over every plaquette centre of `region` (default: the well's
- * bounding box) and finds the positions where levels pair[0] and pair[1] are degenerate.
+ * bounding box, rounded outward to the next centres) and finds the positions where levels pair[0] and pair[1] are degenerate.
  *
  * Each elementary loop (four plaquette centres around one site) is evaluated with the determinant of the overlaps of
  * levels 0..pair[0] (for pair [0, 1] the ground state's overlap), so its sign counts exactly the pair's degeneracies
@@ -137,8 +140,11 @@ export async function runDegeneracy(spec: DegeneracySpec, ctx: TaskRunContext = 
   const region = spec.region ? { min: spec.region.min as Vec2, max: spec.region.max as Vec2 } : { min: problem.well.bbox.min, max: problem.well.bbox.max };
   const h = spec.grid.h;
   const offset = (spec.grid.offset ?? [0, 0]) as Vec2;
-  const [a0, a1] = plaquetteRange(region.min[0], region.max[0], h, offset[0]);
-  const [b0, b1] = plaquetteRange(region.min[1], region.max[1], h, offset[1]);
+  // A given region scans the plaquette centres inside it; the default (the well's bounding box) is rounded outward so
+  // that the loop around the scan encloses the whole well (its sign is then -1 and the count odd).
+  const outward = !spec.region;
+  const [a0, a1] = plaquetteRange(region.min[0], region.max[0], h, offset[0], outward);
+  const [b0, b1] = plaquetteRange(region.min[1], region.max[1], h, offset[1], outward);
   const na = a1 - a0 + 1;
   const nb = b1 - b0 + 1;
   if (na < 2 || nb < 2) throw new SpecError('the region must span at least two plaquette centres on each axis at this grid', 'region');

@@ -20,7 +20,6 @@ import {
   taskMethod,
   progressReporter,
   runtimeFacts,
-  type ScanTuning,
   TASK_DEFAULT_TOL,
   type TaskRunContext,
   tubeReport,

@@ -17,8 +17,12 @@ export interface SnapshotRow {
 
 export function SnapshotList({ snapshots, compareHref }: { snapshots: SnapshotRow[]; compareHref: string }) {
   const newest = snapshots.at(-1)?.version ?? 0;
-  const [a, setA] = useState(Math.max(1, newest - 1));
-  const [b, setB] = useState(newest);
+  // Until the reader picks, compare the two newest versions (this list grows after each freeze).
+  const [picked, setPicked] = useState<{ a?: number; b?: number }>({});
+  const a = picked.a ?? Math.max(1, newest - 1);
+  const b = picked.b ?? newest;
+  const setA = (v: number) => setPicked((p) => ({ ...p, a: v }));
+  const setB = (v: number) => setPicked((p) => ({ ...p, b: v }));
   if (snapshots.length === 0) {
     return <p className="text-sm text-slate-500">No snapshot yet. Freeze a finished run to make v1.</p>;
   }
