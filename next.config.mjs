@@ -10,7 +10,7 @@ const withMDX = createMDX({
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   pageExtensions: ['ts', 'tsx', 'md', 'mdx'],
-  serverExternalPackages: ['@resvg/resvg-js', 'pg-boss', 'mathjs', 'pngjs'],
+  serverExternalPackages: ['@resvg/resvg-js', 'pg-boss', 'mathjs', 'pngjs', 'pdfkit', 'svg-to-pdfkit'],
   poweredByHeader: false,
 };
 

@@ -10,7 +10,7 @@ const root = path.resolve(__dirname, '../..');
 const args = ['--import', 'tsx', path.join(root, 'scripts/compute.ts')];
 const dir = mkdtempSync(path.join(tmpdir(), 'fluxfolio-cli-'));
 
-function run(cliArgs: string[], input?: string, env: NodeJS.ProcessEnv = {}) {
+function run(cliArgs: string[], input?: string, env: Record<string, string> = {}) {
   return spawnSync(process.execPath, [...args, ...cliArgs], { cwd: root, input, encoding: 'utf8', env: { ...process.env, ...env }, timeout: 120_000 });
 }
 
