@@ -1,4 +1,5 @@
 // 404 page: the same words for a page that does not exist and a manuscript the visitor may not see.
+// Next renders it for unknown routes and for every notFound() call.
 import { ButtonLink } from './_components/button';
 
 export default function NotFound() {

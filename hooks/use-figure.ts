@@ -13,6 +13,7 @@ export interface FigureSnapshotRow {
   params: unknown;
   resultHash: string;
   solverVersion: string;
+  frozenById: string | null;
 }
 
 /** What GET /api/figures/[id] answers. */

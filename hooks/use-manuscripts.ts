@@ -1,4 +1,5 @@
 // SWR hook: the signed-in user's manuscripts (or, for site admins, every manuscript) from GET /api/manuscripts.
+// The key helper lets mutations elsewhere refresh the same list (`mutate(manuscriptsKey())`).
 'use client';
 
 import useSWR from 'swr';

@@ -1,4 +1,5 @@
 // SWR hook: the members of one manuscript, from GET /api/manuscripts/[id]/members.
+// Mutations (role change, removal) call the returned `mutate` to refresh the list.
 'use client';
 
 import useSWR from 'swr';

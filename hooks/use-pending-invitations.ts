@@ -1,4 +1,5 @@
 // SWR hook: the pending invitations of one manuscript (owners only), from GET /api/manuscripts/[id]/invitations.
+// The invite form calls the returned `mutate` after sending an invitation.
 'use client';
 
 import useSWR from 'swr';

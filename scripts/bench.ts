@@ -87,7 +87,7 @@ function runScipy(metaPath: string): Record<string, unknown> {
   try {
     const out = execFileSync('python3', [script, metaPath, String(LEVELS), String(REPEATS)], {
       encoding: 'utf8',
-      timeout: 240_000,
+      timeout: 900_000,
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     return JSON.parse(out.trim().split('\n').pop()!);

@@ -27,18 +27,19 @@ async function main(): Promise<void> {
   }
   if (args.length !== 1) fail(2, USAGE);
   const [path] = args;
+  const name = path === '-' ? 'standard input' : path;
 
   let json: unknown;
   try {
     json = JSON.parse(readInput(path));
   } catch (error) {
-    fail(2, `${path} is not valid JSON: ${(error as Error).message}`);
+    fail(2, `${name} is not valid JSON: ${(error as Error).message}`);
   }
   let bundle;
   try {
     bundle = parseBundle(json);
   } catch (error) {
-    if (error instanceof BundleError) fail(2, `${path} is not a valid snapshot bundle:\n  ${error.issues.map((i) => (i.path ? `${i.path}: ${i.message}` : i.message)).join('\n  ')}`);
+    if (error instanceof BundleError) fail(2, `${name} is not a valid snapshot bundle:\n  ${error.issues.map((i) => (i.path ? `${i.path}: ${i.message}` : i.message)).join('\n  ')}`);
     throw error;
   }
 

@@ -1,4 +1,5 @@
 // Small labels: a member's role, a manuscript's status, and "archived" / "site admin" markers.
+// Role badges carry the role description as a tooltip.
 import type { ManuscriptStatus, MemberRole } from '@/db/schema';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/authz/roles';
 import { cn } from './cn';

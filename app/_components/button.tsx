@@ -1,4 +1,5 @@
 // Buttons and button-styled links in four variants (primary, secondary, danger, quiet), with a visible focus ring.
+// ButtonLink renders a next/link with the same looks.
 import Link from 'next/link';
 import type { ComponentProps } from 'react';
 import { cn } from './cn';

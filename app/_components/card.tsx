@@ -1,4 +1,5 @@
 // A white panel with a heading row, the building block of the manuscript and dashboard pages.
+// With an id, the section is labelled by its heading for screen readers.
 import type { ReactNode } from 'react';
 import { cn } from './cn';
 

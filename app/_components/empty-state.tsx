@@ -1,4 +1,5 @@
 // An empty list, said plainly, with an optional next step.
+// The ring-and-flux-line drawing echoes the logo.
 import type { ReactNode } from 'react';
 
 export function EmptyState({ title, children, action }: { title: string; children?: ReactNode; action?: ReactNode }) {

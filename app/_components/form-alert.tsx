@@ -1,4 +1,5 @@
 // A message box above or below a form: errors (role=alert, read out at once) or notices (role=status).
+// Renders nothing when there is no message.
 import type { ReactNode } from 'react';
 import { cn } from './cn';
 

@@ -1,4 +1,5 @@
 // The Fluxfolio mark: a ring (the charged particle's orbit) threaded by a thin flux line, and the word mark.
+// Drawn inline as SVG so it needs no image request.
 export function LogoMark({ className = 'size-7' }: { className?: string }) {
   return (
     <svg viewBox="0 0 32 32" className={className} aria-hidden>

@@ -1,4 +1,5 @@
 // Client-side providers for every page: SWR defaults (our fetcher, no retry on 4xx) and the toaster.
+// Mounted once in the root layout.
 'use client';
 
 import type { ReactNode } from 'react';

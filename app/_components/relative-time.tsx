@@ -1,4 +1,5 @@
 // A date shown as "3 days ago" with the exact time in a tooltip and a machine-readable <time>.
+// Rendered on server and client; the hydration warning for a changed minute is suppressed.
 const UNITS: [Intl.RelativeTimeFormatUnit, number][] = [
   ['year', 365 * 86400],
   ['month', 30 * 86400],

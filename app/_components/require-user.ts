@@ -1,4 +1,5 @@
 // For server pages that need a session: the current user, or a redirect to sign-in that comes back here.
+// Authorisation for manuscript pages still goes through lib/authz/manuscript-access.ts.
 import { redirect } from 'next/navigation';
 import { getCurrentUser, type CurrentUser } from '@/lib/auth/session';
 

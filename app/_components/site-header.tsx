@@ -1,4 +1,5 @@
 // The header on every page: the word mark (home), the main navigation and the user menu when signed in.
+// A server component: it reads the session itself.
 import Link from 'next/link';
 import { getCurrentUser } from '@/lib/auth/session';
 import { Wordmark } from './logo';

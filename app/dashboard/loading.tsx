@@ -1,4 +1,5 @@
 // Shown while the dashboard's server part loads.
+// Built from the list skeleton so that the page does not jump when data arrives.
 import { ManuscriptListSkeleton } from './manuscript-list-skeleton';
 
 export default function DashboardLoading() {

@@ -1,4 +1,5 @@
 // Placeholder cards while the manuscript list loads (used by the list itself and by the route's loading.tsx).
+// A server-safe component (no client hooks), so loading.tsx can render it.
 export function ManuscriptListSkeleton() {
   return (
     <ul className="grid gap-4 md:grid-cols-2" aria-busy="true" aria-label="Loading manuscripts">

@@ -1,4 +1,5 @@
 // The manuscript cards of the dashboard: title, status, my role and what it lets me do, members, last change.
+// Site admins also get a compact one-row-per-manuscript list of the whole site.
 'use client';
 
 import Link from 'next/link';

@@ -1,4 +1,5 @@
 // Sign-in page: password form and "e-mail me a sign-in link" form; next-auth's ?error= codes shown in words.
+// Already signed in: straight on to where the visitor was going.
 import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/session';

@@ -1,4 +1,5 @@
 // Keep post-sign-in redirects on this site: whatever arrives in ?callbackUrl=, only its path is followed.
+// Used by the sign-in page for ?callbackUrl=.
 /**
  * @example
  * safeCallbackPath('/m/rings'); // '/m/rings'

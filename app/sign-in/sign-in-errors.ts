@@ -1,4 +1,5 @@
 // Plain-language messages for the error codes next-auth puts in ?error= on the sign-in page.
+// Unknown codes get a general message rather than the raw code.
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
   Verification: 'This sign-in link has expired or was already used. Ask for a new one below.',

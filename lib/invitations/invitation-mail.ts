@@ -1,7 +1,7 @@
 // The wording of the invitation e-mail an owner's invite sends: who invites, to which manuscript, in which role,
 // and the one link that accepts (signing the invitee up when they have no account yet).
 import type { MemberRole } from '@/db/schema';
-import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/authz/roles';
+import { ROLE_LABELS, ROLE_RIGHTS_FOR_YOU } from '@/lib/authz/roles';
 import type { MailContent } from '@/lib/auth/sign-in-mail';
 import { escapeHtml } from '@/lib/text/escape-html';
 
@@ -30,7 +30,7 @@ export function invitationMail({
   const subject = `${inviterName} invites you to “${manuscriptTitle}” on Fluxfolio`;
   const text = [
     `${inviterName} invites you to join the manuscript “${manuscriptTitle}” as ${label}.`,
-    `As ${label}: ${ROLE_DESCRIPTIONS[role]}`,
+    `As ${label}, you ${ROLE_RIGHTS_FOR_YOU[role]}.`,
     '',
     `Accept within ${days} days (if you have no Fluxfolio account yet, the link creates one):`,
     url,
@@ -39,7 +39,7 @@ export function invitationMail({
     paragraph(
       `${escapeHtml(inviterName)} invites you to join the manuscript <strong>${escapeHtml(manuscriptTitle)}</strong> as ${label}.`,
     ),
-    paragraph(`<span style="color:#475569">As ${label}: ${escapeHtml(ROLE_DESCRIPTIONS[role])}</span>`),
+    paragraph(`<span style="color:#475569">As ${label}, you ${escapeHtml(ROLE_RIGHTS_FOR_YOU[role])}.</span>`),
     paragraph(
       `<a href="${escapeHtml(url)}" style="display:inline-block;padding:10px 16px;border-radius:8px;background:#4338ca;color:#fff;text-decoration:none;font-weight:600">Accept the invitation</a>`,
     ),

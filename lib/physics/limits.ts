@@ -6,6 +6,8 @@ import { LimitError } from './errors';
 export const DEFAULT_MAX_UNKNOWNS = 250_000;
 /** Default cap on unknowns x configurations for sweeps and scans (override with env FLUXFOLIO_MAX_WORK). */
 export const DEFAULT_MAX_WORK = 400_000_000;
+/** Default memory cap of one eigen-solve in MiB (override with env FLUXFOLIO_MAX_MEMORY_MB). */
+export const DEFAULT_MAX_MEMORY_MB = 2048;
 /** The lattice box may hold at most this many times the unknown cap (the box is mostly wall for thin wells). */
 const BOX_FACTOR = 64;
 
@@ -18,11 +20,16 @@ function envInt(name: string, fallback: number): number {
 export interface Budget {
   maxUnknowns: number;
   maxWork: number;
+  maxMemoryBytes: number;
 }
 
 /** The budget in force (read from the environment on every call, so tests and workers can change it). */
 export function currentBudget(): Budget {
-  return { maxUnknowns: envInt('FLUXFOLIO_MAX_UNKNOWNS', DEFAULT_MAX_UNKNOWNS), maxWork: envInt('FLUXFOLIO_MAX_WORK', DEFAULT_MAX_WORK) };
+  return {
+    maxUnknowns: envInt('FLUXFOLIO_MAX_UNKNOWNS', DEFAULT_MAX_UNKNOWNS),
+    maxWork: envInt('FLUXFOLIO_MAX_WORK', DEFAULT_MAX_WORK),
+    maxMemoryBytes: envInt('FLUXFOLIO_MAX_MEMORY_MB', DEFAULT_MAX_MEMORY_MB) * 1024 * 1024,
+  };
 }
 
 const fmt = (v: number) => Math.round(v).toLocaleString('en-US');
@@ -60,6 +67,10 @@ export interface BudgetRequest {
   configurations?: number;
   /** Box sites (nx * ny), checked before the well is rasterised (unknowns may then be an estimate). */
   boxSites?: number;
+  /** Levels wanted per solve, for the memory estimate (checked when given). */
+  levels?: number;
+  /** Complex Hermitian problem (doubles vector memory). */
+  complex?: boolean;
 }
 
 /**
@@ -82,6 +93,15 @@ export function checkBudget(request: BudgetRequest): void {
     throw new LimitError(
       `grid h = ${h} gives about ${fmt(request.unknowns)} unknowns; the limit is ${fmt(budget.maxUnknowns)}: use h >= ${fmtH(suggest)} or a smaller well`,
     );
+  }
+  if (request.levels !== undefined) {
+    const bytes = estimateMemoryBytes(request.unknowns, request.levels, request.complex ?? true);
+    if (bytes > budget.maxMemoryBytes) {
+      const mb = (v: number) => fmt(v / (1024 * 1024));
+      throw new LimitError(
+        `${request.levels} levels on ${fmt(request.unknowns)} unknowns need about ${mb(bytes)} MiB; the limit is ${mb(budget.maxMemoryBytes)} MiB: ask for fewer levels or use a larger h`,
+      );
+    }
   }
   const configurations = request.configurations ?? 1;
   const work = request.unknowns * configurations;

@@ -3,20 +3,28 @@
 import { all, create, type MathNode } from 'mathjs';
 import { SpecError } from './errors';
 
-/** The mathjs instance with the dangerous functions disabled (mathjs "Security" guide, docs/expressions/security.md). */
-const math = create(all);
-const parseFormula = math.parse;
-const disabled = (name: string) => () => {
-  throw new Error(`function ${name} is disabled`);
-};
-math.import(
-  Object.fromEntries(
-    ['import', 'createUnit', 'evaluate', 'parse', 'simplify', 'derivative', 'compile', 'resolve', 'reviver', 'replacer', 'parser', 'chain', 'help'].map(
-      (name) => [name, disabled(name)],
+/** The mathjs parser of an instance with the dangerous functions disabled (mathjs "Security" guide,
+ * docs/expressions/security.md). Created on first use: building a mathjs instance takes a noticeable moment. */
+let restrictedParse: ((expr: string) => MathNode) | null = null;
+
+function parser(): (expr: string) => MathNode {
+  if (restrictedParse) return restrictedParse;
+  const math = create(all);
+  const parse = math.parse;
+  const disabled = (name: string) => () => {
+    throw new Error(`function ${name} is disabled`);
+  };
+  math.import(
+    Object.fromEntries(
+      ['import', 'createUnit', 'evaluate', 'parse', 'simplify', 'derivative', 'compile', 'resolve', 'reviver', 'replacer', 'parser', 'chain', 'help'].map(
+        (name) => [name, disabled(name)],
+      ),
     ),
-  ),
-  { override: true },
-);
+    { override: true },
+  );
+  restrictedParse = (expr: string) => parse(expr);
+  return restrictedParse;
+}
 
 type Fn = (x: number, y: number) => number;
 
@@ -149,7 +157,7 @@ function build(node: MathNode): Fn {
 export function compilePotential(formula: string): (x: number, y: number) => number {
   let tree: MathNode;
   try {
-    tree = parseFormula(formula);
+    tree = parser()(formula);
   } catch (error) {
     return refuse(`cannot read the formula: ${(error as Error).message}`);
   }

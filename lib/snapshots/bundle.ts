@@ -21,7 +21,8 @@ export const bundleSchema = z.object({
   frozenBy: z.string().nullable(),
   frozenAt: z.string(),
   data: z.record(z.string(), z.unknown(), { error: 'data must be an object (the result without diagnostics)' }),
-  diagnostics: z.unknown(),
+  /** Timings and solver facts; not covered by the hash, so a bundle without them still verifies. */
+  diagnostics: z.unknown().optional(),
 });
 export type SnapshotBundle = z.infer<typeof bundleSchema>;
 

@@ -1,4 +1,5 @@
 // Membership payloads: changing a member's role (owners only), and the route parameters naming a member.
+// Roles come from lib/authz/roles.ts so that client bundles never load the Drizzle schema.
 import { z } from 'zod';
 import { ROLES } from '@/lib/authz/roles';
 import { manuscriptIdSchema, userIdSchema } from './common';

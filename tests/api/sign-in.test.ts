@@ -39,6 +39,18 @@ describe('password sign-in', () => {
     expect(JSON.stringify(me.body)).not.toMatch(/password/i);
   });
 
+  it('sends / to the dashboard when signed in and to the sign-in page otherwise', async () => {
+    const anonymous = await new Client().request('/');
+    expect(anonymous.status).toBe(307);
+    expect(anonymous.headers.get('location')).toMatch(/\/sign-in$/);
+    const client = new Client();
+    await client.signInWithPassword(person.email);
+    const signedIn = await client.request('/');
+    expect(signedIn.headers.get('location')).toMatch(/\/dashboard$/);
+    const page = await new Client().request('/dashboard');
+    expect(page.headers.get('location')).toMatch(/\/sign-in\?callbackUrl=%2Fdashboard$/);
+  });
+
   it('marks site admins in the session', async () => {
     const client = new Client();
     await client.signInWithPassword(admin.email);

@@ -204,3 +204,13 @@ describe('factorPreconditioner', () => {
     }
   });
 });
+
+describe('shiftInvertEigenpairs at an unreachable tolerance', () => {
+  it('stops when rounding stalls the residual and says it did not converge', () => {
+    const H = disk(1 / 12, [{ at: [0, 0], alpha: 0.5 }]);
+    const result = shiftInvertEigenpairs(H, 2, { tol: 1e-18 });
+    expect(result.converged).toBe(false);
+    expect(result.iterations).toBeLessThan(30);
+    expect(result.residualNorms[0] / result.values[0]).toBeLessThan(1e-11);
+  });
+});

@@ -1,5 +1,7 @@
 // Tests of the task spec schemas: defaults, per-field messages for invalid input, branch-aware union errors.
 // Messages are the ones written in lib/physics/spec/*.ts.
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/spec';
@@ -76,5 +78,26 @@ describe('parseTaskSpec', () => {
       message: 'min must be smaller than max on both axes',
     });
     expect(issues({ task: 'spectrum', well: disk, grid: { h: 0.1 }, potential: '' })[0].path).toBe('potential');
+  });
+});
+
+describe('worked examples in content/specs', () => {
+  const dir = path.resolve(__dirname, '../../content/specs');
+  const files = readdirSync(dir).filter((f) => f.endsWith('.json'));
+  it('every example is a valid spec', () => {
+    expect(files.length).toBeGreaterThanOrEqual(6);
+    for (const file of files) expect(() => parseTaskSpec(JSON.parse(readFileSync(path.join(dir, file), 'utf8'))), file).not.toThrow();
+  });
+});
+
+describe('limits', () => {
+  it('refuses too many unknowns, configurations or bytes with advice', async () => {
+    const { checkBudget } = await import('@/lib/physics/limits');
+    expect(() => checkBudget({ unknowns: 3_140_000, h: 0.001 })).toThrow(
+      'grid h = 0.001 gives about 3,140,000 unknowns; the limit is 250,000: use h >= 0.0036 or a smaller well',
+    );
+    expect(() => checkBudget({ unknowns: 100_000, h: 0.01, configurations: 10_000 })).toThrow(/use at most 4,000 configurations/);
+    expect(() => checkBudget({ unknowns: 200_000, h: 0.01, levels: 64, complex: true })).toThrow(/ask for fewer levels/);
+    expect(() => checkBudget({ unknowns: 80_000, h: 1 / 160, levels: 4 })).not.toThrow();
   });
 });

@@ -1,4 +1,5 @@
 // GET: liveness plus a database round trip; 503 when PostgreSQL does not answer. No session needed.
+// Used by scripts and monitors to see that the server and its database are up.
 import { sql } from 'drizzle-orm';
 import { db } from '@/db';
 

@@ -1,4 +1,5 @@
 // A plain-text mail body with its http(s) links made clickable (the text itself is never treated as HTML).
+// Links in the text part are all a developer needs to follow a sign-in or invitation.
 const LINK = /(https?:\/\/[^\s<>"')\]]+)/g;
 
 export function MailText({ text }: { text: string }) {

@@ -1,4 +1,5 @@
 // Authors' and owners' form for the manuscript's title, abstract and status (PATCH /api/manuscripts/[id]).
+// Shown only when the server grants `edit`; the route handler checks again.
 'use client';
 
 import { useRouter } from 'next/navigation';

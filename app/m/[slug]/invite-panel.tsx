@@ -1,4 +1,5 @@
 // Owners' invite form (POST /api/manuscripts/[id]/members) and the list of invitations still pending.
+// Shown only to owners (and site admins acting as owners).
 'use client';
 
 import { useRef, useState, type FormEvent } from 'react';

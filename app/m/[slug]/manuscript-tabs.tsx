@@ -10,7 +10,11 @@ interface Tab {
   need: ManuscriptAction;
 }
 
-export const MANUSCRIPT_TABS: Tab[] = [{ segment: '', label: 'Overview', need: 'read' }];
+export const MANUSCRIPT_TABS: Tab[] = [
+  { segment: '', label: 'Overview', need: 'read' },
+  { segment: 'notes', label: 'Figure notes', need: 'read' },
+  { segment: 'figures', label: 'Figures', need: 'read' },
+];
 
 export function ManuscriptTabs({
   slug,

@@ -1,4 +1,5 @@
 // The new-manuscript form: validated with the shared schema, sent to POST /api/manuscripts, then opens the manuscript.
+// The same zod schema validates here and in the route handler.
 'use client';
 
 import { useRouter } from 'next/navigation';

@@ -1,4 +1,5 @@
 // Start a manuscript: title and abstract; the creator becomes its owner.
+// Any signed-in person may start a manuscript.
 import type { Metadata } from 'next';
 import { requireUser } from '../../_components/require-user';
 import { NewManuscriptForm } from './new-manuscript-form';

@@ -1,4 +1,5 @@
 // Shown after asking for a sign-in link: where to look, and what to do when nothing arrives.
+// next-auth sends visitors here (pages.verifyRequest) after a link was requested.
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { LogoMark } from '../../_components/logo';

@@ -1,6 +1,5 @@
 // Polynomial preconditioner for LOBPCG: a few steps of Chebyshev iteration on (H - lo) x = r, using only sparse products.
 // It inverts H approximately on the upper part of the spectrum, which is what slows unpreconditioned LOBPCG.
-import { csrMatVecColumns } from '../csr';
 import type { CsrMatrix, Preconditioner, StateBlock } from '../types';
 
 /** Default polynomial degree when none is asked for explicitly (see chebyshevDegreeFor). */
@@ -65,8 +64,8 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
   let resIm: Float64Array | null = null;
   let dir = new Float64Array(0);
   let dirIm: Float64Array | null = null;
-  let ad = new Float64Array(0);
-  let adIm: Float64Array | null = null;
+  let next = new Float64Array(0);
+  let nextIm: Float64Array | null = null;
 
   return (r: StateBlock, out: StateBlock) => {
     const k = r.k;
@@ -76,19 +75,20 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
       cap = len;
       res = new Float64Array(len);
       dir = new Float64Array(len);
-      ad = new Float64Array(len);
+      next = new Float64Array(len);
       resIm = complex ? new Float64Array(len) : null;
       dirIm = complex ? new Float64Array(len) : null;
-      adIm = complex ? new Float64Array(len) : null;
+      nextIm = complex ? new Float64Array(len) : null;
     }
     const xr = out.re;
-    const xi = out.im;
+    const xi = complex ? out.im : null;
+    if (complex && !xi) throw new TypeError('chebyshevPreconditioner: out.im must be allocated for a complex problem');
     for (let i = 0; i < len; i++) {
       res[i] = r.re[i];
       dir[i] = r.re[i] / theta;
       xr[i] = 0;
     }
-    if (complex && resIm && dirIm && xi) {
+    if (resIm && dirIm && xi) {
       for (let i = 0; i < len; i++) {
         const v = r.im ? r.im[i] : 0;
         resIm[i] = v;
@@ -97,25 +97,94 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
       }
     }
     let rho = 1 / sigma1;
-    for (let step = 1; ; step++) {
-      for (let i = 0; i < len; i++) xr[i] += dir[i];
-      if (xi && dirIm) for (let i = 0; i < len; i++) xi[i] += dirIm[i];
-      if (step >= degree) break;
-      csrMatVecColumns(A, dir.subarray(0, len), dirIm ? dirIm.subarray(0, len) : null, ad.subarray(0, len), adIm ? adIm.subarray(0, len) : null, k);
+    for (let step = 1; step < degree; step++) {
       const rhoNext = 1 / (2 * sigma1 - rho);
       const c1 = rhoNext * rho;
       const c2 = (2 * rhoNext) / delta;
-      for (let i = 0; i < len; i++) {
-        res[i] -= ad[i] - lo * dir[i];
-        dir[i] = c1 * dir[i] + c2 * res[i];
-      }
-      if (resIm && dirIm && adIm) {
-        for (let i = 0; i < len; i++) {
-          resIm[i] -= adIm[i] - lo * dirIm[i];
-          dirIm[i] = c1 * dirIm[i] + c2 * resIm[i];
-        }
-      }
+      if (resIm && dirIm && nextIm && xi) chebyshevStepComplex(A, k, lo, c1, c2, xr, xi, res, resIm, dir, dirIm, next, nextIm);
+      else chebyshevStepReal(A, k, lo, c1, c2, xr, res, dir, next);
+      [dir, next] = [next, dir];
+      if (dirIm && nextIm) [dirIm, nextIm] = [nextIm, dirIm];
       rho = rhoNext;
     }
+    for (let i = 0; i < len; i++) xr[i] += dir[i];
+    if (xi && dirIm) for (let i = 0; i < len; i++) xi[i] += dirIm[i];
   };
+}
+
+/**
+ * One fused Chebyshev step for k real columns: x += d; r -= (A - lo) d; d' = c1 d + c2 r, row by row in one pass
+ * (the sparse product reads d, the new direction goes to a second buffer).
+ */
+function chebyshevStepReal(
+  A: CsrMatrix,
+  k: number,
+  lo: number,
+  c1: number,
+  c2: number,
+  x: Float64Array,
+  res: Float64Array,
+  d: Float64Array,
+  dNext: Float64Array,
+): void {
+  const { n, rowPtr, colIdx, re } = A;
+  for (let row = 0; row < n; row++) {
+    const start = rowPtr[row];
+    const end = rowPtr[row + 1];
+    for (let c = 0, off = 0; c < k; c++, off += n) {
+      let s = 0;
+      for (let p = start; p < end; p++) s += re[p] * d[off + colIdx[p]];
+      const i = off + row;
+      const di = d[i];
+      x[i] += di;
+      const ri = res[i] - (s - lo * di);
+      res[i] = ri;
+      dNext[i] = c1 * di + c2 * ri;
+    }
+  }
+}
+
+/** The same step for complex columns and a Hermitian (possibly complex) matrix. */
+function chebyshevStepComplex(
+  A: CsrMatrix,
+  k: number,
+  lo: number,
+  c1: number,
+  c2: number,
+  xr: Float64Array,
+  xi: Float64Array,
+  resRe: Float64Array,
+  resIm: Float64Array,
+  dRe: Float64Array,
+  dIm: Float64Array,
+  nRe: Float64Array,
+  nIm: Float64Array,
+): void {
+  const { n, rowPtr, colIdx, re, im } = A;
+  for (let row = 0; row < n; row++) {
+    const start = rowPtr[row];
+    const end = rowPtr[row + 1];
+    for (let c = 0, off = 0; c < k; c++, off += n) {
+      let sr = 0;
+      let si = 0;
+      for (let p = start; p < end; p++) {
+        const q = off + colIdx[p];
+        const ar = re[p];
+        const ai = im === null ? 0 : im[p];
+        sr += ar * dRe[q] - ai * dIm[q];
+        si += ar * dIm[q] + ai * dRe[q];
+      }
+      const i = off + row;
+      const a = dRe[i];
+      const b = dIm[i];
+      xr[i] += a;
+      xi[i] += b;
+      const rr = resRe[i] - (sr - lo * a);
+      const ri = resIm[i] - (si - lo * b);
+      resRe[i] = rr;
+      resIm[i] = ri;
+      nRe[i] = c1 * a + c2 * rr;
+      nIm[i] = c1 * b + c2 * ri;
+    }
+  }
 }

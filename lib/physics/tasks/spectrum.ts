@@ -3,6 +3,7 @@
 import { degenerateGroups, lowestEigenpairs } from '../eigen';
 import { AbortError, SpecError } from '../errors';
 import { isRealFlux } from '../hamiltonian';
+import { checkBudget } from '../limits';
 import type { SpectrumSpec } from '../spec/spectrum';
 import { prepareProblem } from '../problem';
 import type { EigenOptions, Lattice, StateBlock, TaskContext, Vec2 } from '../types';
@@ -17,14 +18,14 @@ const ACCEPT_FACTOR = 1e3;
 export interface SpectrumStates {
   /** |psi|^2 per level (normalised so that sum over sites = 1). */
   density: number[][];
-  /** Real parts per level (the state itself for a real problem). */
+  /** Real parts per level. */
   re: number[][];
   /** Imaginary parts per level, null for a real problem. */
   im: number[][] | null;
   /** arg psi in (-pi, pi] in the cut gauge (PHYSICS.md section 2), null for a real problem; 0 at wall sites. */
   phase: number[][] | null;
-  /** True when the problem is real (every 2 alpha an integer): states are real and sign-fixed. */
-  real: boolean;
+  /** Real problems only (every 2 alpha an integer): the real, sign-fixed states (the same numbers as `re`). */
+  real?: number[][];
   /** The gauge the states are given in. */
   gauge: 'cut towards +x';
 }
@@ -69,7 +70,7 @@ function statesOf(lattice: Lattice, block: StateBlock, real: boolean): SpectrumS
   const im = real ? null : toBox(lattice, block, 'im');
   const density = re.map((r, j) => r.map((v, s) => v * v + (im ? im[j][s] ** 2 : 0)));
   const phase = im ? re.map((r, j) => r.map((v, s) => (v === 0 && im[j][s] === 0 ? 0 : principal(Math.atan2(im[j][s], v))))) : null;
-  return { density, re, im, phase, real, gauge: 'cut towards +x' };
+  return { density, re, im, phase, ...(real ? { real: re } : {}), gauge: 'cut towards +x' };
 }
 
 function principal(phase: number): number {
@@ -101,8 +102,9 @@ export async function runSpectrum(
   if (levels > lattice.n) {
     throw new SpecError(`the well holds only ${lattice.n} grid sites at h = ${lattice.h}: ask for at most ${lattice.n} levels or use a smaller h`, 'levels');
   }
-  const matrix = problem.matrix();
   const real = isRealFlux(tubes.map((t) => t.alpha));
+  checkBudget({ unknowns: lattice.n, h: lattice.h, levels, complex: !real });
+  const matrix = problem.matrix();
   const tol = spec.tol ?? TASK_DEFAULT_TOL;
   const eig = lowestEigenpairs(matrix, levels, {
     tol,

@@ -1,4 +1,5 @@
 // GET /api/figures/[figureId]/snapshots: the figure's frozen snapshots, v1 first (readers).
+// Each snapshot is immutable; its download bundle lives under /api/snapshots/[snapshotId]/bundle.
 import { listSnapshotsByFigure } from '@/db/queries/snapshots';
 import { route } from '@/lib/http/handler';
 import { authorizeFigure } from '@/lib/runs/resource-access';

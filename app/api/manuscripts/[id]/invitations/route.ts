@@ -1,4 +1,5 @@
 // GET: the invitations of a manuscript that are still pending (owners).
+// Accepted and expired invitations are left out.
 import { listPendingInvitations } from '@/db/queries/invitations';
 import { route } from '@/lib/http/handler';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';

@@ -1,4 +1,5 @@
 // POST /api/runs/[runId]/cancel: cancel a queued or running run (authors). 409 when it has already finished.
+// The worker computing it notices within a fraction of a second and stops.
 import { route } from '@/lib/http/handler';
 import { cancelRun } from '@/lib/runs/cancel-run';
 import { authorizeRun } from '@/lib/runs/resource-access';

@@ -5,6 +5,7 @@
 import { useRouter } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import type { FieldValues } from 'react-hook-form';
+import { useFigure } from '@/hooks/use-figure';
 import type { RunResponse } from '@/hooks/use-run';
 import { CHART_VIEWS, defaultViewSpec } from '@/lib/charts';
 import type { FigureKind } from '@/lib/validations/figure';
@@ -25,6 +26,8 @@ export interface FigureWorkbenchProps {
   latestRun: RunView | null;
   latestResult: { run: RunView; data: unknown; params: unknown } | null;
   snapshots: SnapshotRow[];
+  /** Names of the people who may have frozen snapshots (user id -> name), for the snapshot list. */
+  people: Record<string, string>;
   can: { edit: boolean; run: boolean };
 }
 
@@ -33,8 +36,19 @@ function withoutData(spec: unknown): unknown {
   return JSON.parse(JSON.stringify(spec, (key, value) => (key === 'values' && Array.isArray(value) ? `[${value.length} rows]` : value)));
 }
 
-export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResult, snapshots, can }: FigureWorkbenchProps) {
+export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResult, snapshots: initialSnapshots, people, can }: FigureWorkbenchProps) {
   const router = useRouter();
+  // The figure as the API has it now: its snapshot list refreshes after each freeze without reloading the page.
+  const live = useFigure(figure.id);
+  const snapshots: SnapshotRow[] = live.data
+    ? live.data.snapshots.map((s) => ({
+        id: s.id,
+        version: s.version,
+        frozenAt: s.frozenAt,
+        frozenBy: s.frozenById ? (people[s.frozenById] ?? null) : null,
+        resultHash: s.resultHash,
+      }))
+    : initialSnapshots;
   const { units } = useDisplayUnits();
   const [shown, setShown] = useState(latestResult);
   const [viewSpec, setViewSpec] = useState(figure.viewSpec);
@@ -76,7 +90,7 @@ export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResul
               canRun={can.run}
               canFreeze={can.run}
               onResult={onResult}
-              onFrozen={() => router.refresh()}
+              onFrozen={() => void live.mutate()}
               beforeRun={async () => (form.current ? form.current.saveIfDirty() : true)}
             />
           </div>

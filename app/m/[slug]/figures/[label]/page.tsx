@@ -3,6 +3,7 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { getFigureByLabel } from '@/db/queries/figures';
+import { listMembers } from '@/db/queries/members';
 import { listSnapshotsByFigure } from '@/db/queries/snapshots';
 import { getUserById } from '@/db/queries/users';
 import type { FigureKind } from '@/lib/validations/figure';
@@ -30,8 +31,10 @@ export default async function FigurePage({ params }: Props) {
     listSnapshotsByFigure({ figureId: figure.id }),
   ]);
   if (!loaded) notFound();
+  // Names of whoever froze a snapshot: the members, plus former members or admins who froze one.
   const frozenBy = new Map<string, string>();
-  for (const id of new Set(snapshots.map((s) => s.frozenById).filter((x): x is string => !!x))) {
+  for (const member of await listMembers({ manuscriptId: manuscript.id })) frozenBy.set(member.userId, member.name ?? member.email);
+  for (const id of new Set(snapshots.map((s) => s.frozenById).filter((x): x is string => !!x && !frozenBy.has(x)))) {
     const user = await getUserById({ id });
     if (user) frozenBy.set(id, user.name ?? user.email);
   }
@@ -55,6 +58,7 @@ export default async function FigurePage({ params }: Props) {
           frozenBy: s.frozenById ? (frozenBy.get(s.frozenById) ?? null) : null,
           resultHash: s.resultHash,
         }))}
+        people={Object.fromEntries(frozenBy)}
         can={{ edit: can.edit, run: can.run }}
       />
     </DisplayUnitsProvider>
