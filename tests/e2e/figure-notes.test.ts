@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sqlClient } from '@/db';
 import { APP_URL, signInWithPassword, type AppClient } from '../helpers/app';
-import { launchBrowser, newPage, screenshot } from '../helpers/browser';
+import { launchBrowser, newPage, screenshot as saveScreenshot } from '../helpers/browser';
 import { createTestTeam, type TestTeam } from '../helpers/db';
 
 /** A small spectral flow (unit disk, off-centre tube, h = 1/20): a few seconds of solver time. */
@@ -61,6 +61,12 @@ afterAll(async () => {
   await browser?.close();
   await sqlClient.end({ timeout: 5 });
 });
+
+/** A full-page screenshot taken from the top (a sticky header would otherwise be drawn mid-page). */
+async function screenshot(page: Page, name: string): Promise<void> {
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await saveScreenshot(page, name);
+}
 
 function base(): string {
   return `/m/${team.manuscript.slug}`;
