@@ -1,7 +1,7 @@
 // `npm run bench`: solver speed on the issue's cases, against scipy's eigsh on the very same matrices.
 // Writes bench/results.json and prints a summary; see bench/README.md for the cases and the targets.
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { shiftInvertEigenpairs } from '../lib/physics/eigen/shift-invert';
@@ -135,6 +135,8 @@ async function singleCase(c: SingleCase, scratch: string) {
   return {
     name: c.name,
     description: c.description,
+    measuredAt: new Date().toISOString(),
+    loadAverage: os.loadavg(),
     unknowns: matrix.n,
     complex: matrix.im !== null,
     ours: {
@@ -189,6 +191,8 @@ async function scanCase() {
   const two = await run('warm starts, 2 worker threads', true, 2);
   return {
     name: 'pentagon-h60-degeneracy-scan',
+    measuredAt: new Date().toISOString(),
+    loadAverage: os.loadavg(),
     description: 'half tube scanned over every plaquette centre of a non-symmetric pentagon at h = 1/60 (runDegeneracy)',
     unknowns: lattice.n,
     runs: [cold, one, two],
@@ -254,7 +258,17 @@ async function main() {
   const totalSeconds = (performance.now() - started) / 1000;
   results.totalSeconds = totalSeconds;
   results.peakRssMB = peakRssMB();
-  const out = path.join(process.cwd(), 'bench', only.length ? `results-${only.join('-')}.json` : 'results.json');
+  // A run of selected cases refreshes those entries of bench/results.json and keeps the others.
+  const out = path.join(process.cwd(), 'bench', 'results.json');
+  if (only.length && existsSync(out)) {
+    const previous = JSON.parse(readFileSync(out, 'utf8')) as Record<string, unknown>;
+    const fresh = (results.singleSolves as Array<{ name: string }>) ?? [];
+    const kept = ((previous.singleSolves as Array<{ name: string }>) ?? []).filter((c) => !fresh.some((f) => f.name === c.name));
+    const order = SINGLE_CASES.map((c) => c.name);
+    results.singleSolves = [...kept, ...fresh].sort((a, b) => order.indexOf(a.name) - order.indexOf(b.name));
+    for (const key of ['methodComparison', 'degeneracyScan']) if (!(key in results) && key in previous) results[key] = previous[key];
+    results.partialRun = only;
+  }
   mkdirSync(path.dirname(out), { recursive: true });
   writeFileSync(out, `${JSON.stringify(results, null, 2)}\n`);
   console.log(`wrote ${path.relative(process.cwd(), out)} in ${totalSeconds.toFixed(0)} s`);

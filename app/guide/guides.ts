@@ -1,4 +1,5 @@
 // The static guides for authors (MDX in content/guides, compiled by @next/mdx with math): slug, title and summary.
+// The guide pages read this list; adding a guide means one MDX file and one entry here.
 import type { MDXContent } from 'mdx/types';
 import FiguresAndSnapshots from '@/content/guides/figures-and-snapshots.mdx';
 import WritingFigureNotes from '@/content/guides/writing-figure-notes.mdx';

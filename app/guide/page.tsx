@@ -1,4 +1,5 @@
 // The guides for authors: a short index of the static MDX guides.
+// Linked from the figure notes pages.
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { GUIDES } from './guides';

@@ -8,7 +8,7 @@ import { roleAtLeast } from './roles';
 
 /**
  * The one table of manuscript-scoped actions: the least role that may perform each, and whether the action
- * changes content (refused while the manuscript is archived). Later steps add rows here (approve, freeze, …).
+ * changes content (refused while the manuscript is archived). Later steps add rows here (approve, referee links, …).
  */
 export const MANUSCRIPT_ACTIONS = {
   /** See the manuscript, its members, notes, figures and snapshots. */
@@ -19,6 +19,8 @@ export const MANUSCRIPT_ACTIONS = {
   edit: { minimum: 'author', changesContent: true },
   /** Start solver runs. */
   run: { minimum: 'author', changesContent: true },
+  /** Freeze a succeeded run as the figure's next snapshot. */
+  freeze: { minimum: 'author', changesContent: true },
   /** Invite, change roles, remove members, archive and restore. */
   manage: { minimum: 'owner', changesContent: false },
   /** Delete the manuscript (only while it has no frozen snapshot; checked by the query). */

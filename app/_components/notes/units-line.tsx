@@ -1,4 +1,5 @@
 // The Units component of figure notes: one line stating the display units in force (follows the page's switch).
+// Client component: it reads the page's display-units context.
 'use client';
 
 import { describeUnits } from '@/lib/units';

@@ -1,4 +1,5 @@
 // One guide for authors, rendered from content/guides/<slug>.mdx with @next/mdx (KaTeX math, the note Callout).
+// The MDX is compiled at build time by @next/mdx; only the page around it renders per request.
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';

@@ -1,6 +1,7 @@
 // A manuscript's overview: title, status, abstract and members for every member; the details form for authors
 // and owners; invitations, role changes, archive and delete for owners.
 import type { Metadata } from 'next';
+import { ROLE_LABELS, ROLE_RIGHTS_FOR_YOU } from '@/lib/authz/roles';
 import { AdminBadge, ArchivedBadge, RoleBadge, StatusBadge } from '../../_components/badges';
 import { Card } from '../../_components/card';
 import { RelativeTime } from '../../_components/relative-time';
@@ -40,6 +41,11 @@ export default async function ManuscriptPage({ params }: Props) {
         <p className="text-xs text-slate-500">
           Started <RelativeTime iso={manuscript.createdAt} /> · last change <RelativeTime iso={manuscript.updatedAt} />
         </p>
+        {detail.memberRole && (
+          <p className="text-sm text-slate-600" data-testid="my-rights">
+            As {ROLE_LABELS[detail.memberRole].toLowerCase()}, you {ROLE_RIGHTS_FOR_YOU[detail.memberRole]}.
+          </p>
+        )}
         {detail.viaAdmin && (
           <p className="rounded-lg bg-phase-100 px-3 py-2 text-sm text-phase-700 ring-1 ring-phase-300 ring-inset">
             You are not a member of this manuscript; as a site admin you see it and may act as its owner.

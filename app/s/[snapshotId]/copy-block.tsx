@@ -1,4 +1,5 @@
 // A read-only text block (citation, BibTeX, LaTeX) with a copy button that says when it copied.
+// Falls back to asking the reader to copy by hand when the clipboard is not available.
 'use client';
 
 import { useState } from 'react';

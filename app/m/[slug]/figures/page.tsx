@@ -1,4 +1,5 @@
 // The figures of a manuscript: label, kind, newest run and snapshot count; authors create new figures here.
+// Every member reads the list; the form beside it is shown to authors and owners only.
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listFiguresByManuscript } from '@/db/queries/figures';

@@ -1,4 +1,5 @@
 // The "new note" form: a title (the slug is made from it), POST to the manuscript's notes, then on to the editor.
+// The note starts with a short example of text and math that the author replaces.
 'use client';
 
 import { useRouter } from 'next/navigation';

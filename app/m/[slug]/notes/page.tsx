@@ -1,4 +1,5 @@
 // The figure notes of a manuscript: each note with its revision and last change; authors create new notes here.
+// Every member reads the list; the form beside it is shown to authors and owners only.
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listNotesByManuscript } from '@/db/queries/notes';

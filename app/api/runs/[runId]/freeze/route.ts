@@ -9,7 +9,6 @@ export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
 
 export const POST = route({ params: runParamsSchema, status: 201 }, async ({ params, user }) => {
-  // Freezing is an author's act (the action table has no separate 'freeze' row yet; 'run' has the same minimum).
-  const { run } = await authorizeRun({ user, runId: params.runId, need: 'run' });
+  const { run } = await authorizeRun({ user, runId: params.runId, need: 'freeze' });
   return { snapshot: await freezeRun({ runId: run.id, user }) };
 });

@@ -1,4 +1,5 @@
 // A figure's title and caption (authors): the caption goes into snapshots, the LaTeX figure block and notes.
+// Checked with the shared figure schemas before the PATCH; server messages are shown per field.
 'use client';
 
 import { useState } from 'react';

@@ -1,4 +1,5 @@
 // Editing a figure note (authors and owners): the editor with live preview, figure-block picker and history.
+// Only authors and owners reach it; coauthors are sent back to the rendered note.
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { listFiguresByManuscript } from '@/db/queries/figures';
