@@ -48,6 +48,8 @@ describe('flux sweep (Byers & Yang 1961)', () => {
     for (let s = mid + 1; s <= last; s++) expect(r.tracked[0][s]).toBeGreaterThan(r.tracked[f][s]);
     // Sorted level 0 has a kink there instead (a fake avoided crossing if read as one curve).
     expect(r.sorted[0][mid + 1]).toBeLessThan(r.sorted[0][mid]);
-    expect(r.diagnostics.trackOverlap[0]).toBeGreaterThan(0.5);
+    // At the exact degeneracy (alpha = 1/2) the solver's basis of the doubly degenerate pair is arbitrary, so the
+    // best |overlap|^2 of a neighbouring state with one basis vector can fall to about 1/2 (and no lower).
+    expect(r.diagnostics.trackOverlap[0]).toBeGreaterThan(0.45);
   });
 });
