@@ -73,8 +73,23 @@ export type WellSpec =
 /** The names a well object may use as its single key. */
 export const WELL_KINDS = ['disk', 'ellipse', 'rectangle', 'polygon', 'annulus', 'stadium', 'mask', 'union', 'difference'] as const;
 
+/** The shape names of the flat form `{"shape": "disk", "center": [0, 0], "radius": 1}`. */
+const SHAPE_NAMES: readonly string[] = WELL_KINDS.filter((k) => k !== 'union' && k !== 'difference');
+
+/**
+ * Accept both spellings of a shape: the flat form `{"shape":"disk","center":[0,0],"radius":1}` (the documented one)
+ * and the keyed form `{"disk":{"center":[0,0],"radius":1}}` used inside Fluxfolio. The flat form is rewritten to the
+ * keyed form before validation, so every later stage sees one shape.
+ */
+export function normalizeWellInput(input: unknown): unknown {
+  if (input === null || typeof input !== 'object' || Array.isArray(input)) return input;
+  const { shape, ...rest } = input as Record<string, unknown>;
+  if (typeof shape !== 'string' || !SHAPE_NAMES.includes(shape)) return input;
+  return { [shape]: rest };
+}
+
 export const wellSchema: z.ZodType<WellSpec, unknown> = z.lazy(() =>
-  z.union(
+  z.preprocess(normalizeWellInput, z.union(
     [
       z.strictObject({ disk: diskShapeSchema }),
       z.strictObject({ ellipse: ellipseShapeSchema }),
@@ -86,8 +101,10 @@ export const wellSchema: z.ZodType<WellSpec, unknown> = z.lazy(() =>
       z.strictObject({ union: z.array(wellSchema).min(1, 'a union needs at least one well').max(64, 'a union may hold at most 64 wells') }),
       z.strictObject({ difference: z.tuple([wellSchema, wellSchema], { error: 'a difference is [well, well to remove]' }) }),
     ],
-    { error: `must be one well: an object with one key of ${WELL_KINDS.join(', ')}` },
-  ),
+    {
+      error: `must be one well: {"shape": one of ${SHAPE_NAMES.join(', ')}, …its fields}, {"union": [wells]} or {"difference": [well, well]}`,
+    },
+  )),
 ) as z.ZodType<WellSpec, unknown>;
 
 /** Grid spacing h (units of L) and an optional offset of the sites in units of h. */
