@@ -55,7 +55,8 @@ describe('parseTaskSpec', () => {
   });
 
   it('explains wells, loops and tasks it does not know', () => {
-    expect(issues({ task: 'spectrum', well: { blob: {} }, grid: { h: 0.1 } })[0].message).toMatch(/one key of disk, ellipse/);
+    expect(issues({ task: 'spectrum', well: { blob: {} }, grid: { h: 0.1 } })[0].message).toMatch(/"shape": one of disk, ellipse/);
+    expect(issues({ task: 'spectrum', well: { shape: 'blob' }, grid: { h: 0.1 } })[0].message).toMatch(/"shape": one of disk, ellipse/);
     expect(issues({ task: 'spectrum', well: { disk: { center: [0, 0], radius: 0 } }, grid: { h: 0.1 } })).toEqual([
       { path: 'well.disk.radius', message: 'radius must be positive' },
     ]);
@@ -65,6 +66,23 @@ describe('parseTaskSpec', () => {
     });
     const loop = issues({ task: 'holonomy', well: disk, grid: { h: 0.1 }, moving: { alpha: 0.5 }, loop: { circle: { center: [0, 0], radius: -1 } } });
     expect(loop).toContainEqual({ path: 'loop.circle.radius', message: 'radius must be positive' });
+  });
+
+  it('accepts the flat well form {"shape": ...} as the same well as the keyed form', () => {
+    const flat = parseTaskSpec({
+      task: 'spectrum',
+      well: { union: [{ shape: 'disk', center: [0, 0], radius: 1 }, { shape: 'rectangle', min: [0, -0.5], max: [2, 0.5] }] },
+      grid: { h: 0.1 },
+    });
+    const keyed = parseTaskSpec({
+      task: 'spectrum',
+      well: { union: [{ disk: { center: [0, 0], radius: 1 } }, { rectangle: { min: [0, -0.5], max: [2, 0.5] } }] },
+      grid: { h: 0.1 },
+    });
+    expect(flat).toEqual(keyed);
+    expect(issues({ task: 'spectrum', well: { shape: 'disk', center: [0, 0], radius: 0 }, grid: { h: 0.1 } })).toEqual([
+      { path: 'well.disk.radius', message: 'radius must be positive' },
+    ]);
   });
 
   it('refuses unknown fields and bad shapes', () => {
