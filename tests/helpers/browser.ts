@@ -62,13 +62,15 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /**
- * Sign in through the app's own sign-in page by filling the e-mail and password fields (label texts matched
- * loosely) and submitting; waits until the URL leaves /sign-in.
+ * Sign in through the app's own sign-in page by filling the password form's e-mail and password fields and
+ * submitting; waits until the URL leaves /sign-in.
  */
 export async function signInInBrowser(page: Page, email: string, password: string): Promise<void> {
   await page.goto('/sign-in');
-  await page.getByLabel(/e-?mail/i).first().fill(email);
-  await page.getByLabel(/password/i).first().fill(password);
-  await page.getByRole('button', { name: /sign in/i }).first().click();
+  // Scope to the password form: the form itself is labelled by its heading, which also mentions the password.
+  const form = page.getByTestId('password-form');
+  await form.getByRole('textbox', { name: /e-?mail/i }).fill(email);
+  await form.locator('input[type="password"]').fill(password);
+  await form.getByRole('button', { name: /sign in/i }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
