@@ -134,6 +134,22 @@ describe('LDL factorisation', () => {
     expect(maxAbsDiff(x.im!, ref2.im)).toBeLessThan(1e-12);
   });
 
+  it('solves blocks wider than one sweep (7 and 13 right-hand sides) column by column like single solves', () => {
+    const n = 120;
+    const a = randomHermitian(n, 0.04, false, 61);
+    const factor = factorLdl(a);
+    for (const k of [7, 13]) {
+      const b = randomBlock(n, k, false, 62 + k);
+      const x: StateBlock = { n, k, re: new Float64Array(k * n), im: null };
+      solveLdl(factor, b, x);
+      for (let c = 0; c < k; c++) {
+        const single: StateBlock = { n, k: 1, re: new Float64Array(n), im: null };
+        solveLdl(factor, { n, k: 1, re: b.re.slice(c * n, (c + 1) * n), im: null }, single);
+        expect(maxAbsDiff(x.re.slice(c * n, (c + 1) * n), single.re)).toBeLessThan(1e-13);
+      }
+    }
+  });
+
   it('counts the nonzeros of L exactly (symbolic column counts vs a dense factor of the permuted matrix)', () => {
     const n = 70;
     const a = randomHermitian(n, 0.05, false, 31);
