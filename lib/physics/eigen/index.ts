@@ -50,7 +50,7 @@ function validate(matrix: CsrMatrix, k: number, options: EigenOptions): void {
 /**
  * The k lowest eigenpairs of a Hermitian CSR matrix (the lattice Hamiltonian).
  *
- * Dispatch: `options.method` or, for 'auto', `chooseMethod(n, k, options)` (dense for small n, LOBPCG otherwise).
+ * Dispatch: `options.method` or, for 'auto', `chooseMethod(n, k, options)` (dense for tiny n, LOBPCG when a preconditioner is given, shift-invert otherwise).
  * Vectors are orthonormal, real when the matrix is real, and phase-fixed (largest-modulus component real positive,
  * ties to the lowest index) so that identical inputs give identical bytes.
  *
