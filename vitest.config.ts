@@ -3,7 +3,7 @@ import { defineConfig } from 'vitest/config';
 import path from 'node:path';
 
 export default defineConfig({
-  resolve: { alias: { '@': path.resolve(__dirname) } },
+  resolve: { alias: { '@': import.meta.dirname } },
   test: {
     environment: 'node',
     fileParallelism: false,
