@@ -1,6 +1,5 @@
 // Vitest configuration: node environment, one file at a time (tests share one PostgreSQL test database).
 import { defineConfig } from 'vitest/config';
-import path from 'node:path';
 
 export default defineConfig({
   resolve: { alias: { '@': import.meta.dirname } },
