@@ -85,5 +85,11 @@ set -e
 cleanup
 step "Summary (full output: test-results/vitest.log; server logs: .data/logs/test-*.log)"
 sed -e 's/\x1b\[[0-9;]*m//g' "$VITEST_LOG" | grep -E '^ *(Test Files|Tests|Errors|Duration) ' || info "vitest printed no summary"
+# One plain closing line with the counts ("N passed, N failed"), read by CI whatever the runner.
+counts="$(sed -e 's/\x1b\[[0-9;]*m//g' "$VITEST_LOG" | grep -E '^ *Tests ' | tail -n 1)"
+passed="$(printf '%s' "$counts" | grep -oE '[0-9]+ passed' | grep -oE '[0-9]+' || echo 0)"
+failed="$(printf '%s' "$counts" | grep -oE '[0-9]+ failed' | grep -oE '[0-9]+' || echo 0)"
+skipped="$(printf '%s' "$counts" | grep -oE '[0-9]+ skipped' | grep -oE '[0-9]+' || true)"
 if [ "$status" -eq 0 ]; then info "all tests passed"; else info "vitest exited with status $status"; fi
+if [ -n "$skipped" ]; then echo "tests: ${passed:-0} passed, ${failed:-0} failed, $skipped skipped"; else echo "tests: ${passed:-0} passed, ${failed:-0} failed"; fi
 exit "$status"
