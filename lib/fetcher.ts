@@ -52,12 +52,12 @@ export async function fetcher<T>(url: string): Promise<T> {
 }
 
 /**
- * Send a JSON mutation (POST, PATCH, DELETE).
+ * Send a JSON mutation (POST, PUT, PATCH, DELETE).
  *
  * @example
  * await sendJson('/api/manuscripts', { method: 'POST', body: { title } });
  */
-export async function sendJson<T>(url: string, { method, body }: { method: 'POST' | 'PATCH' | 'DELETE'; body?: unknown }): Promise<T> {
+export async function sendJson<T>(url: string, { method, body }: { method: 'POST' | 'PUT' | 'PATCH' | 'DELETE'; body?: unknown }): Promise<T> {
   try {
     const response = await fetch(url, {
       method,

@@ -1,5 +1,5 @@
-// A message box above or below a form: errors (role=alert, read out at once) or notices (role=status).
-// Renders nothing when there is no message.
+// A message box above or below a form: errors (role=alert, read out at once) or notices (role=status), and the
+// one-line inline error shown beside a form's buttons. Both render nothing when there is no message.
 import type { ReactNode } from 'react';
 import { cn } from './cn';
 
@@ -16,5 +16,15 @@ export function FormAlert({ tone = 'error', children, className }: { tone?: 'err
     >
       {children}
     </div>
+  );
+}
+
+/** A one-line error beside a form's buttons (role=alert), in plain red text; nothing when there is no message. */
+export function InlineAlert({ children }: { children: ReactNode }) {
+  if (!children) return null;
+  return (
+    <p role="alert" className="text-sm text-red-700">
+      {children}
+    </p>
   );
 }

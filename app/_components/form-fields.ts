@@ -1,6 +1,7 @@
 // Helpers for client forms validated with the shared zod schemas: read a form into a plain object and
 // turn a failed parse into per-field messages (the same shape the API answers with).
 import type { z } from 'zod';
+import { ApiError } from '@/lib/fetcher';
 
 export type FieldErrors = Record<string, string[]>;
 
@@ -24,4 +25,28 @@ export function parseWith<S extends z.ZodType>(
     (fields[key] ??= []).push(issue.message);
   }
   return { ok: false, fields };
+}
+
+/**
+ * Handle a form's submit event: stop the browser's own submit, read and parse the form, and store the per-field
+ * messages through `setFields` (cleared when the form is valid). Returns the parsed data, or null when invalid.
+ *
+ * @example
+ * const data = parseSubmit(event, magicLinkSchema, setLinkErrors);
+ * if (!data) return;
+ */
+export function parseSubmit<S extends z.ZodType>(
+  event: { preventDefault(): void; currentTarget: HTMLFormElement },
+  schema: S,
+  setFields: (fields: FieldErrors) => void,
+): z.output<S> | null {
+  event.preventDefault();
+  const parsed = parseWith(schema, formValues(event.currentTarget));
+  setFields(parsed.ok ? {} : parsed.fields);
+  return parsed.ok ? parsed.data : null;
+}
+
+/** A failed request as per-field messages, with the overall message under `_` (for forms that show it inline). */
+export function errorFields(error: unknown): FieldErrors {
+  return error instanceof ApiError ? { ...error.fields, _: [error.message] } : { _: [String(error)] };
 }

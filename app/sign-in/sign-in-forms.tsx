@@ -9,7 +9,7 @@ import { magicLinkSchema, passwordSignInSchema } from '@/lib/validations/auth';
 import { Button } from '../_components/button';
 import { TextField } from '../_components/field';
 import { FormAlert } from '../_components/form-alert';
-import { formValues, parseWith, type FieldErrors } from '../_components/form-fields';
+import { parseSubmit, type FieldErrors } from '../_components/form-fields';
 import { signInErrorMessage } from './sign-in-errors';
 
 export function SignInForms({
@@ -28,13 +28,11 @@ export function SignInForms({
   const [busy, setBusy] = useState<'password' | 'link' | null>(null);
 
   async function onPasswordSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
     setMessage(null);
-    const parsed = parseWith(passwordSignInSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setPasswordErrors(parsed.fields);
-    setPasswordErrors({});
+    const data = parseSubmit(event, passwordSignInSchema, setPasswordErrors);
+    if (!data) return;
     setBusy('password');
-    const result = await signIn('credentials', { ...parsed.data, redirect: false });
+    const result = await signIn('credentials', { ...data, redirect: false });
     if (!result || result.error) {
       setBusy(null);
       setMessage(signInErrorMessage(result?.error ?? 'CredentialsSignin'));
@@ -45,20 +43,22 @@ export function SignInForms({
   }
 
   async function onLinkSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
     setMessage(null);
-    const parsed = parseWith(magicLinkSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setLinkErrors(parsed.fields);
-    setLinkErrors({});
+    const data = parseSubmit(event, magicLinkSchema, setLinkErrors);
+    if (!data) return;
     setBusy('link');
-    const result = await signIn('email', { email: parsed.data.email, callbackUrl: callbackPath, redirect: false });
+    const result = await signIn('email', { email: data.email, callbackUrl: callbackPath, redirect: false });
     if (!result || result.error) {
       setBusy(null);
       setMessage(signInErrorMessage(result?.error ?? 'EmailSignin'));
       return;
     }
-    router.push(`/sign-in/check-mail?email=${encodeURIComponent(parsed.data.email)}`);
+    router.push(`/sign-in/check-mail?email=${encodeURIComponent(data.email)}`);
   }
+
+  const emailField = (errors: string[] | undefined) => (
+    <TextField label="E-mail" name="email" type="email" autoComplete="email" defaultValue={initialEmail} required errors={errors} />
+  );
 
   return (
     <div className="rounded-2xl bg-white shadow-sm ring-1 ring-slate-200">
@@ -71,15 +71,7 @@ export function SignInForms({
         <h2 id="password-heading" className="text-sm font-semibold text-slate-900">
           With your password
         </h2>
-        <TextField
-          label="E-mail"
-          name="email"
-          type="email"
-          autoComplete="email"
-          defaultValue={initialEmail}
-          required
-          errors={passwordErrors.email}
-        />
+        {emailField(passwordErrors.email)}
         <TextField
           label="Password"
           name="password"
@@ -104,15 +96,7 @@ export function SignInForms({
           </h2>
           <p className="mt-1 text-xs text-slate-500">No password needed; the link works once, for 30 minutes.</p>
         </div>
-        <TextField
-          label="E-mail"
-          name="email"
-          type="email"
-          autoComplete="email"
-          defaultValue={initialEmail}
-          required
-          errors={linkErrors.email}
-        />
+        {emailField(linkErrors.email)}
         <Button type="submit" variant="secondary" className="w-full" busy={busy === 'link'} disabled={busy !== null}>
           E-mail me a sign-in link
         </Button>

@@ -4,6 +4,7 @@ import { and, count, desc, eq, inArray, like, or, sql } from 'drizzle-orm';
 import { db } from '@/db';
 import { manuscripts, memberships, snapshots, type Manuscript, type MemberRole } from '@/db/schema';
 import { conflict, notFound } from '@/lib/http/errors';
+import { slugFromTitle } from '@/lib/validations/common';
 import type { Executor } from './executor';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 
@@ -17,27 +18,6 @@ export interface ManuscriptListItem {
   updatedAt: Date;
   role: MemberRole | null;
   memberCount: number;
-}
-
-const MAX_SLUG_BASE = 60;
-
-/**
- * A URL-safe slug from a title: lower-case ASCII letters, digits and single hyphens, at most 60 characters.
- *
- * @example
- * slugify('Flux  tubes, part II'); // 'flux-tubes-part-ii'
- * slugify('Émile’s ring'); // 'emile-s-ring' (accents stripped, other symbols become hyphens)
- */
-export function slugify(title: string): string {
-  const slug = title
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, MAX_SLUG_BASE)
-    .replace(/-+$/g, '');
-  return slug || 'manuscript';
 }
 
 /** The first free slug among `base`, `base-2`, `base-3`, … */
@@ -68,19 +48,22 @@ export async function getManuscriptBySlug({ slug }: { slug: string }): Promise<M
 
 const memberCountSql = sql<number>`(select count(*)::int from ${memberships} m2 where m2.manuscript_id = ${manuscripts.id})`;
 
+/** The columns of a ManuscriptListItem (the caller's role comes from the joined membership row). */
+const listItemColumns = {
+  id: manuscripts.id,
+  slug: manuscripts.slug,
+  title: manuscripts.title,
+  status: manuscripts.status,
+  archivedAt: manuscripts.archivedAt,
+  updatedAt: manuscripts.updatedAt,
+  role: memberships.role,
+  memberCount: memberCountSql,
+};
+
 /** The manuscripts `userId` is a member of, most recently updated first. */
 export async function listManuscriptsForUser({ userId }: { userId: string }): Promise<ManuscriptListItem[]> {
   return db
-    .select({
-      id: manuscripts.id,
-      slug: manuscripts.slug,
-      title: manuscripts.title,
-      status: manuscripts.status,
-      archivedAt: manuscripts.archivedAt,
-      updatedAt: manuscripts.updatedAt,
-      role: memberships.role,
-      memberCount: memberCountSql,
-    })
+    .select(listItemColumns)
     .from(memberships)
     .innerJoin(manuscripts, eq(manuscripts.id, memberships.manuscriptId))
     .where(eq(memberships.userId, userId))
@@ -90,16 +73,7 @@ export async function listManuscriptsForUser({ userId }: { userId: string }): Pr
 /** Every manuscript (site admins), with `userId`'s role where they are a member. */
 export async function listAllManuscripts({ userId }: { userId: string }): Promise<ManuscriptListItem[]> {
   return db
-    .select({
-      id: manuscripts.id,
-      slug: manuscripts.slug,
-      title: manuscripts.title,
-      status: manuscripts.status,
-      archivedAt: manuscripts.archivedAt,
-      updatedAt: manuscripts.updatedAt,
-      role: memberships.role,
-      memberCount: memberCountSql,
-    })
+    .select(listItemColumns)
     .from(manuscripts)
     .leftJoin(memberships, and(eq(memberships.manuscriptId, manuscripts.id), eq(memberships.userId, userId)))
     .orderBy(desc(manuscripts.updatedAt));
@@ -118,7 +92,7 @@ export async function createManuscript({
   title: string;
   abstract?: string;
 }): Promise<Manuscript> {
-  const base = slugify(title);
+  const base = slugFromTitle(title, 'manuscript');
   for (let attempt = 0; attempt < 5; attempt++) {
     try {
       return await db.transaction(async (tx) => {

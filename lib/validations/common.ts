@@ -43,3 +43,26 @@ export const userIdSchema = z
   .min(1, 'Not a valid user id')
   .max(64, 'Not a valid user id')
   .regex(/^[A-Za-z0-9_-]+$/, 'Not a valid user id');
+
+/** Longest slug made from a title (characters); callers may append a "-2", "-3"… suffix to keep it unique. */
+export const MAX_SLUG_BASE = 60;
+
+/**
+ * A URL-safe slug from a title: lower-case ASCII letters, digits and single hyphens, at most {@link MAX_SLUG_BASE}
+ * characters; `fallback` when nothing is left (a title of symbols only).
+ *
+ * @example
+ * slugFromTitle('Flux  tubes, part II', 'manuscript'); // 'flux-tubes-part-ii'
+ * slugFromTitle('Émile’s ring', 'manuscript'); // 'emile-s-ring' (accents stripped, other symbols become hyphens)
+ */
+export function slugFromTitle(title: string, fallback: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, MAX_SLUG_BASE)
+    .replace(/-+$/g, '');
+  return slug || fallback;
+}

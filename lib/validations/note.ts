@@ -1,6 +1,7 @@
 // Figure-note payloads (create, save) and URL ids, shared by the note editor, the route handlers and the seed.
 // Limits: title 200 characters, MDX source 200 kB (UTF-8 bytes), slug lower-case with hyphens.
 import { z } from 'zod';
+import { slugFromTitle } from './common';
 
 export const MAX_NOTE_TITLE = 200;
 export const MAX_NOTE_SOURCE_BYTES = 200 * 1024;
@@ -69,13 +70,5 @@ export const revisionsQuerySchema = z
  * slugify('Spectral flow of a half tube'); // 'spectral-flow-of-a-half-tube'
  */
 export function slugify(title: string): string {
-  const slug = title
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60)
-    .replace(/-+$/g, '');
-  return slug || 'note';
+  return slugFromTitle(title, 'note');
 }

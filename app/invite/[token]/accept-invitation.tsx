@@ -4,7 +4,6 @@
 
 import { signIn, signOut } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
 import type { AcceptedInvitationJson } from '@/lib/api-types';
 import { ApiError, sendJson } from '@/lib/fetcher';
 import { MAX_NAME, MIN_PASSWORD } from '@/lib/validations/common';
@@ -12,7 +11,7 @@ import { signUpFromInvitationSchema } from '@/lib/validations/invitation';
 import { Button, ButtonLink } from '../../_components/button';
 import { TextField } from '../../_components/field';
 import { FormAlert } from '../../_components/form-alert';
-import { formValues, parseWith, type FieldErrors } from '../../_components/form-fields';
+import { useJsonForm } from '../../_components/use-json-form';
 
 export function AcceptInvitation({
   token,
@@ -28,10 +27,21 @@ export function AcceptInvitation({
   signInHref: string;
 }) {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
   const url = `/api/invitations/${token}`;
+  const { fields, message, setMessage, busy, setBusy, onSubmit: signUp } = useJsonForm(
+    signUpFromInvitationSchema,
+    async (data) => {
+      const { accepted } = await sendJson<{ accepted: AcceptedInvitationJson }>(url, { method: 'POST', body: data });
+      const result = await signIn('credentials', { email: accepted.email, password: data.password, redirect: false });
+      if (!result || result.error) {
+        router.push(`/sign-in?email=${encodeURIComponent(accepted.email)}&callbackUrl=${encodeURIComponent(`/m/${accepted.manuscriptSlug}`)}`);
+        return;
+      }
+      router.push(`/m/${accepted.manuscriptSlug}`);
+      router.refresh();
+    },
+    { staysBusyOnSuccess: true, fallbackMessage: 'The account could not be created' },
+  );
 
   async function join() {
     setBusy(true);
@@ -43,33 +53,6 @@ export function AcceptInvitation({
     } catch (error) {
       setBusy(false);
       setMessage(error instanceof ApiError ? error.message : 'The invitation could not be accepted');
-    }
-  }
-
-  async function signUp(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setMessage(null);
-    const parsed = parseWith(signUpFromInvitationSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setFields(parsed.fields);
-    setFields({});
-    setBusy(true);
-    try {
-      const { accepted } = await sendJson<{ accepted: AcceptedInvitationJson }>(url, { method: 'POST', body: parsed.data });
-      const result = await signIn('credentials', { email: accepted.email, password: parsed.data.password, redirect: false });
-      if (!result || result.error) {
-        router.push(`/sign-in?email=${encodeURIComponent(accepted.email)}&callbackUrl=${encodeURIComponent(`/m/${accepted.manuscriptSlug}`)}`);
-        return;
-      }
-      router.push(`/m/${accepted.manuscriptSlug}`);
-      router.refresh();
-    } catch (error) {
-      setBusy(false);
-      if (error instanceof ApiError) {
-        setFields(error.fields);
-        setMessage(error.message);
-      } else {
-        setMessage('The account could not be created');
-      }
     }
   }
 

@@ -3,49 +3,29 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
 import { useSWRConfig } from 'swr';
 import { manuscriptsKey } from '@/hooks/use-manuscripts';
 import type { ManuscriptJson } from '@/lib/api-types';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
 import { MAX_ABSTRACT, MAX_TITLE } from '@/lib/validations/common';
 import { updateManuscriptSchema } from '@/lib/validations/manuscript';
 import { STATUS_LABELS } from '../../_components/badges';
 import { Button } from '../../_components/button';
 import { SelectField, TextAreaField, TextField } from '../../_components/field';
 import { FormAlert } from '../../_components/form-alert';
-import { formValues, parseWith, type FieldErrors } from '../../_components/form-fields';
 import { useToast } from '../../_components/toaster';
+import { useJsonForm } from '../../_components/use-json-form';
 
 export function DetailsForm({ manuscript }: { manuscript: ManuscriptJson }) {
   const router = useRouter();
   const toast = useToast();
   const { mutate } = useSWRConfig();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setMessage(null);
-    const parsed = parseWith(updateManuscriptSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setFields(parsed.fields);
-    setFields({});
-    setBusy(true);
-    try {
-      await sendJson(`/api/manuscripts/${manuscript.id}`, { method: 'PATCH', body: parsed.data });
-      await mutate(manuscriptsKey('mine'));
-      toast('Details saved');
-      router.refresh();
-    } catch (error) {
-      if (error instanceof ApiError) {
-        setFields(error.fields);
-        setMessage(error.message);
-      }
-    } finally {
-      setBusy(false);
-    }
-  }
+  const { fields, message, busy, onSubmit } = useJsonForm(updateManuscriptSchema, async (data) => {
+    await sendJson(`/api/manuscripts/${manuscript.id}`, { method: 'PATCH', body: data });
+    await mutate(manuscriptsKey('mine'));
+    toast('Details saved');
+    router.refresh();
+  });
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" data-testid="details-form">

@@ -2,55 +2,35 @@
 // Shown only to owners (and site admins acting as owners).
 'use client';
 
-import { useRef, useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { usePendingInvitations } from '@/hooks/use-pending-invitations';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS, ROLES } from '@/lib/authz/roles';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
 import { MAX_EMAIL } from '@/lib/validations/common';
 import { createInvitationSchema } from '@/lib/validations/invitation';
 import { RoleBadge } from '../../_components/badges';
 import { Button } from '../../_components/button';
 import { SelectField, TextField } from '../../_components/field';
 import { FormAlert } from '../../_components/form-alert';
-import { formValues, parseWith, type FieldErrors } from '../../_components/form-fields';
 import { RelativeTime } from '../../_components/relative-time';
 import { useToast } from '../../_components/toaster';
+import { useJsonForm } from '../../_components/use-json-form';
 
 export function InvitePanel({ manuscriptId }: { manuscriptId: string }) {
   const toast = useToast();
-  const formRef = useRef<HTMLFormElement>(null);
   const { invitations, mutate } = usePendingInvitations(manuscriptId);
-  const [fields, setFields] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
   const [role, setRole] = useState<(typeof ROLES)[number]>('coauthor');
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setMessage(null);
-    const parsed = parseWith(createInvitationSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setFields(parsed.fields);
-    setFields({});
-    setBusy(true);
-    try {
-      await sendJson(`/api/manuscripts/${manuscriptId}/members`, { method: 'POST', body: parsed.data });
-      toast(`Invitation sent to ${parsed.data.email}`);
-      formRef.current?.reset();
-      setRole('coauthor');
-      await mutate();
-    } catch (error) {
-      if (error instanceof ApiError) {
-        setFields(error.fields);
-        setMessage(error.message);
-      }
-    } finally {
-      setBusy(false);
-    }
-  }
+  const { fields, message, busy, onSubmit } = useJsonForm(createInvitationSchema, async (data, form) => {
+    await sendJson(`/api/manuscripts/${manuscriptId}/members`, { method: 'POST', body: data });
+    toast(`Invitation sent to ${data.email}`);
+    form.reset();
+    setRole('coauthor');
+    await mutate();
+  });
 
   return (
     <div className="space-y-6">
-      <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-4" data-testid="invite-form">
+      <form onSubmit={onSubmit} noValidate className="space-y-4" data-testid="invite-form">
         {message && <FormAlert>{message}</FormAlert>}
         <div className="grid gap-4 sm:grid-cols-[minmax(0,1fr)_12rem]">
           <TextField

@@ -3,50 +3,32 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
 import { useSWRConfig } from 'swr';
 import { manuscriptsKey } from '@/hooks/use-manuscripts';
 import type { ManuscriptJson } from '@/lib/api-types';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
 import { MAX_ABSTRACT, MAX_TITLE } from '@/lib/validations/common';
 import { createManuscriptSchema } from '@/lib/validations/manuscript';
 import { Button, ButtonLink } from '../../_components/button';
 import { TextAreaField, TextField } from '../../_components/field';
 import { FormAlert } from '../../_components/form-alert';
-import { formValues, parseWith, type FieldErrors } from '../../_components/form-fields';
 import { useToast } from '../../_components/toaster';
+import { useJsonForm } from '../../_components/use-json-form';
 
 export function NewManuscriptForm() {
   const router = useRouter();
   const toast = useToast();
   const { mutate } = useSWRConfig();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setMessage(null);
-    const parsed = parseWith(createManuscriptSchema, formValues(event.currentTarget));
-    if (!parsed.ok) return setFields(parsed.fields);
-    setFields({});
-    setBusy(true);
-    try {
-      const { manuscript } = await sendJson<{ manuscript: ManuscriptJson }>('/api/manuscripts', {
-        method: 'POST',
-        body: parsed.data,
-      });
+  const { fields, message, busy, onSubmit } = useJsonForm(
+    createManuscriptSchema,
+    async (data) => {
+      const { manuscript } = await sendJson<{ manuscript: ManuscriptJson }>('/api/manuscripts', { method: 'POST', body: data });
       await mutate(manuscriptsKey('mine'));
       toast('Manuscript created');
       router.push(`/m/${manuscript.slug}`);
-    } catch (error) {
-      setBusy(false);
-      if (error instanceof ApiError) {
-        setFields(error.fields);
-        setMessage(error.message);
-      }
-    }
-  }
+    },
+    { staysBusyOnSuccess: true },
+  );
 
   return (
     <form onSubmit={onSubmit} noValidate className="mt-8 space-y-5 rounded-xl bg-white p-5 shadow-sm ring-1 ring-slate-200 sm:p-6">

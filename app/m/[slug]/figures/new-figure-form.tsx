@@ -4,10 +4,12 @@
 
 import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
 import { FIGURE_KINDS, figureLabelSchema, type FigureKind } from '@/lib/validations/figure';
 import { Button } from '../../../_components/button';
 import { SelectField, TextField } from '../../../_components/field';
+import { InlineAlert } from '../../../_components/form-alert';
+import { errorFields } from '../../../_components/form-fields';
 import { defaultParams, KIND_LABELS } from '../../../_components/figures/default-params';
 
 export function NewFigureForm({ manuscriptId, manuscriptSlug }: { manuscriptId: string; manuscriptSlug: string }) {
@@ -34,8 +36,7 @@ export function NewFigureForm({ manuscriptId, manuscriptSlug }: { manuscriptId: 
       });
       router.push(`/m/${manuscriptSlug}/figures/${figure.label}`);
     } catch (error) {
-      if (error instanceof ApiError) setErrors({ ...error.fields, _: [error.message] });
-      else setErrors({ _: [String(error)] });
+      setErrors(errorFields(error));
       setBusy(false);
     }
   };
@@ -59,11 +60,7 @@ export function NewFigureForm({ manuscriptId, manuscriptSlug }: { manuscriptId: 
         ))}
       </SelectField>
       <TextField label="Title" value={title} onChange={(e) => setTitle(e.target.value)} errors={errors.title} maxLength={200} />
-      {errors._ ? (
-        <p role="alert" className="text-sm text-red-700">
-          {errors._.join(' ')}
-        </p>
-      ) : null}
+      <InlineAlert>{errors._?.join(' ')}</InlineAlert>
       <Button type="submit" busy={busy} data-testid="create-figure">
         Create figure
       </Button>

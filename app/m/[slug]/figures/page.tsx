@@ -6,8 +6,8 @@ import { listFiguresByManuscript } from '@/db/queries/figures';
 import { getLatestRun } from '@/db/queries/runs';
 import { listSnapshotsByManuscript } from '@/db/queries/snapshots';
 import { Card } from '../../../_components/card';
-import { EmptyState } from '../../../_components/empty-state';
 import { KIND_LABELS } from '../../../_components/figures/default-params';
+import { ListBesideForm } from '../../../_components/figures/list-beside-form';
 import { requireManuscriptPage } from '../../../_components/figures/page-access';
 import { SectionHeader } from '../../../_components/figures/section-header';
 import type { FigureKind } from '@/lib/validations/figure';
@@ -36,50 +36,48 @@ export default async function FiguresPage({ params }: Props) {
   return (
     <div>
       <SectionHeader manuscript={manuscript} section="figures" title="Figures" />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
-        <section aria-label="Figures">
-          {figures.length === 0 ? (
-            <EmptyState title="No figures yet">
-              {can.edit ? 'Create one with the form beside this list.' : 'Authors of this manuscript create the figures.'}
-            </EmptyState>
-          ) : (
-            <ul className="divide-y divide-slate-200 rounded-xl bg-white shadow-sm ring-1 ring-slate-200" data-testid="figure-list">
-              {figures.map((figure, k) => {
-                const run = runs[k];
-                const versions = snapshots.filter((s) => s.figureId === figure.id).length;
-                return (
-                  <li key={figure.id} className="flex flex-wrap items-center justify-between gap-3 px-5 py-4">
-                    <div className="min-w-0">
-                      <Link
-                        href={`/m/${manuscript.slug}/figures/${figure.label}`}
-                        className="font-medium text-slate-900 hover:text-flux-800 hover:underline"
-                      >
-                        {figure.title || figure.label}
-                      </Link>
-                      <p className="text-xs text-slate-500">
-                        <code className="font-mono">{figure.label}</code> · {KIND_LABELS[figure.kind as FigureKind] ?? figure.kind}
-                      </p>
-                    </div>
-                    <div className="flex items-center gap-2 text-xs">
-                      {run ? <span className={`rounded-full px-2 py-0.5 ${STATUS_STYLE[run.status]}`}>last run {run.status}</span> : null}
-                      <span className="rounded-full bg-phase-100 px-2 py-0.5 text-phase-700">
-                        {versions} snapshot{versions === 1 ? '' : 's'}
-                      </span>
-                    </div>
-                  </li>
-                );
-              })}
-            </ul>
-          )}
-        </section>
-        <aside>
-          {can.edit ? (
+      <ListBesideForm
+        label="Figures"
+        testId="figure-list"
+        empty={
+          figures.length === 0
+            ? { title: 'No figures yet', text: can.edit ? 'Create one with the form beside this list.' : 'Authors of this manuscript create the figures.' }
+            : null
+        }
+        aside={
+          can.edit ? (
             <Card title="New figure" description="Pick a kind; it starts with small, quick parameters you can change.">
               <NewFigureForm manuscriptId={manuscript.id} manuscriptSlug={manuscript.slug} />
             </Card>
-          ) : null}
-        </aside>
-      </div>
+          ) : null
+        }
+      >
+        {figures.map((figure, k) => {
+          const run = runs[k];
+          const versions = snapshots.filter((s) => s.figureId === figure.id).length;
+          return (
+            <li key={figure.id} className="flex flex-wrap items-center justify-between gap-3 px-5 py-4">
+              <div className="min-w-0">
+                <Link
+                  href={`/m/${manuscript.slug}/figures/${figure.label}`}
+                  className="font-medium text-slate-900 hover:text-flux-800 hover:underline"
+                >
+                  {figure.title || figure.label}
+                </Link>
+                <p className="text-xs text-slate-500">
+                  <code className="font-mono">{figure.label}</code> · {KIND_LABELS[figure.kind as FigureKind] ?? figure.kind}
+                </p>
+              </div>
+              <div className="flex items-center gap-2 text-xs">
+                {run ? <span className={`rounded-full px-2 py-0.5 ${STATUS_STYLE[run.status]}`}>last run {run.status}</span> : null}
+                <span className="rounded-full bg-phase-100 px-2 py-0.5 text-phase-700">
+                  {versions} snapshot{versions === 1 ? '' : 's'}
+                </span>
+              </div>
+            </li>
+          );
+        })}
+      </ListBesideForm>
     </div>
   );
 }

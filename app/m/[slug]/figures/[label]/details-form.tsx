@@ -4,10 +4,11 @@
 
 import { useState } from 'react';
 import { updateFigure } from '@/hooks/use-figure';
-import { ApiError } from '@/lib/fetcher';
 import { figureCaptionSchema, figureTitleSchema } from '@/lib/validations/figure';
 import { Button } from '../../../../_components/button';
 import { TextAreaField, TextField } from '../../../../_components/field';
+import { InlineAlert } from '../../../../_components/form-alert';
+import { errorFields } from '../../../../_components/form-fields';
 
 export function FigureDetailsForm({
   figureId,
@@ -43,7 +44,7 @@ export function FigureDetailsForm({
       setStatus('Saved.');
       onSaved?.({ title: t.data, caption: c.data });
     } catch (error) {
-      setErrors(error instanceof ApiError ? { ...error.fields, _: [error.message] } : { _: [String(error)] });
+      setErrors(errorFields(error));
     } finally {
       setBusy(false);
     }
@@ -66,11 +67,7 @@ export function FigureDetailsForm({
           Save title and caption
         </Button>
         {status && !dirty ? <p className="text-sm text-emerald-800">{status}</p> : null}
-        {errors._ ? (
-          <p role="alert" className="text-sm text-red-700">
-            {errors._.join(' ')}
-          </p>
-        ) : null}
+        <InlineAlert>{errors._?.join(' ')}</InlineAlert>
       </div>
     </div>
   );

@@ -32,6 +32,20 @@ export function FieldError({ id, message }: { id: string; message?: string }) {
   );
 }
 
+/** A labelled control with its hint (while it has no error) or its error underneath. */
+function LabelledField({ id, label, hint, error, children }: { id: string; label: ReactNode; hint?: string; error?: string; children: ReactNode }) {
+  return (
+    <div>
+      <label htmlFor={id} className="block text-xs font-medium text-slate-700">
+        {label}
+      </label>
+      {children}
+      {hint && !error ? <p className="mt-1 text-xs text-slate-500">{hint}</p> : null}
+      <FieldError id={`${id}-e`} message={error} />
+    </div>
+  );
+}
+
 /** A number with its unit. Empty means NaN (required) or undefined (`optional`). */
 export function NumberField({
   name,
@@ -116,10 +130,7 @@ export function TextInputField({ name, label, hint, placeholder }: { name: strin
   const id = useId();
   const error = useFieldError(name);
   return (
-    <div>
-      <label htmlFor={id} className="block text-xs font-medium text-slate-700">
-        {label}
-      </label>
+    <LabelledField id={id} label={label} hint={hint} error={error}>
       <input
         id={id}
         className={`${INPUT} mt-1 font-mono`}
@@ -127,9 +138,7 @@ export function TextInputField({ name, label, hint, placeholder }: { name: strin
         aria-invalid={error ? true : undefined}
         {...register(name, { setValueAs: (v) => (typeof v === 'string' && v.trim() === '' ? undefined : v) })}
       />
-      {hint && !error ? <p className="mt-1 text-xs text-slate-500">{hint}</p> : null}
-      <FieldError id={`${id}-e`} message={error} />
-    </div>
+    </LabelledField>
   );
 }
 
@@ -193,10 +202,16 @@ function PointsText({
   }, [value]);
   const error = parseError ?? schemaError;
   return (
-    <div>
-      <label htmlFor={id} className="block text-xs font-medium text-slate-700">
-        {label} <span className="font-normal text-slate-500">(one “x, y” per line, in {unit})</span>
-      </label>
+    <LabelledField
+      id={id}
+      label={
+        <>
+          {label} <span className="font-normal text-slate-500">(one “x, y” per line, in {unit})</span>
+        </>
+      }
+      hint={hint}
+      error={error}
+    >
       <textarea
         id={id}
         rows={Math.min(8, Math.max(3, text.split('\n').length))}
@@ -215,9 +230,7 @@ function PointsText({
           }
         }}
       />
-      {hint && !error ? <p className="mt-1 text-xs text-slate-500">{hint}</p> : null}
-      <FieldError id={`${id}-e`} message={error} />
-    </div>
+    </LabelledField>
   );
 }
 
@@ -254,10 +267,7 @@ function JsonText({
   const [parseError, setParseError] = useState<string | null>(null);
   const error = parseError ?? schemaError;
   return (
-    <div>
-      <label htmlFor={id} className="block text-xs font-medium text-slate-700">
-        {label}
-      </label>
+    <LabelledField id={id} label={label} hint={hint} error={error}>
       <textarea
         id={id}
         rows={8}
@@ -275,8 +285,6 @@ function JsonText({
           }
         }}
       />
-      {hint && !error ? <p className="mt-1 text-xs text-slate-500">{hint}</p> : null}
-      <FieldError id={`${id}-e`} message={error} />
-    </div>
+    </LabelledField>
   );
 }

@@ -3,12 +3,13 @@
 'use client';
 
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
-import { ApiError } from '@/lib/fetcher';
+import { ApiError, sendJson } from '@/lib/fetcher';
 import type { NoteProblem } from '@/lib/mdx/check-note';
 import { saveNoteSchema } from '@/lib/validations/note';
 import { Button, ButtonLink } from '../../../../../_components/button';
 import { Card } from '../../../../../_components/card';
 import { TextField } from '../../../../../_components/field';
+import { InlineAlert } from '../../../../../_components/form-alert';
 import { FigurePicker, type PickableFigure } from './figure-picker';
 import { RevisionHistory } from './revision-history';
 import { SourceTextarea, type SourceTextareaHandle } from './source-textarea';
@@ -18,24 +19,6 @@ export interface NoteEditorProps {
   note: { id: string; title: string; source: string; revision: number; slug: string };
   manuscript: { id: string; slug: string };
   figures: PickableFigure[];
-}
-
-/** PUT a note (the shared client only sends POST/PATCH/DELETE); errors come back as ApiError like everywhere else. */
-async function putNote(noteId: string, body: unknown): Promise<{ note: { revision: number }; warnings: NoteProblem[] }> {
-  let response: Response;
-  try {
-    response = await fetch(`/api/notes/${noteId}`, {
-      method: 'PUT',
-      credentials: 'same-origin',
-      headers: { 'content-type': 'application/json', accept: 'application/json' },
-      body: JSON.stringify(body),
-    });
-  } catch {
-    throw new ApiError(0, 'Cannot reach the server; check your connection');
-  }
-  const data = await response.json().catch(() => ({}));
-  if (!response.ok) throw new ApiError(response.status, data.error ?? `Saving failed (${response.status})`, data.fields ?? {});
-  return data;
 }
 
 export function NoteEditor({ note, manuscript, figures }: NoteEditorProps) {
@@ -72,7 +55,10 @@ export function NoteEditor({ note, manuscript, figures }: NoteEditorProps) {
     }
     setSaving(true);
     try {
-      const answer = await putNote(note.id, parsed.data);
+      const answer = await sendJson<{ note: { revision: number }; warnings: NoteProblem[] }>(`/api/notes/${note.id}`, {
+        method: 'PUT',
+        body: parsed.data,
+      });
       setSaved({ title, source, revision: answer.note.revision });
       setSaveProblem(null);
       setSavedMessage(`Saved as revision ${answer.note.revision}.`);
@@ -143,11 +129,7 @@ export function NoteEditor({ note, manuscript, figures }: NoteEditorProps) {
                 {savedMessage}
               </p>
             ) : null}
-            {saveProblem && !saveProblem.problems.length ? (
-              <p role="alert" className="text-sm text-red-700">
-                {saveProblem.message}
-              </p>
-            ) : null}
+            <InlineAlert>{saveProblem && !saveProblem.problems.length ? saveProblem.message : null}</InlineAlert>
           </div>
         </section>
         <section aria-label="Live preview" className="space-y-2">
