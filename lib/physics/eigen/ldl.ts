@@ -319,13 +319,11 @@ export function solveLdl(factor: LdlFactor, rhs: StateBlock, out: StateBlock): v
     else if (out.im) out.im.fill(0);
     return;
   }
-  const wre = new Float64Array(n * k);
-  const wim = new Float64Array(n * k);
-  gather(factor.symbolic.perm, rhs.re, k, wre, k, 0);
-  if (rhs.im) gather(factor.symbolic.perm, rhs.im, k, wim, k, 0);
-  solveComplex(factor, wre, wim, k);
-  scatter(factor.symbolic.perm, wre, k, 0, out.re, k);
-  scatter(factor.symbolic.perm, wim, k, 0, out.im!, k);
+  // Complex work array with the real and imaginary parts of each entry side by side (see solveComplex).
+  const work = new Float64Array(2 * n * k);
+  gatherComplex(factor.symbolic.perm, rhs.re, rhs.im, k, work);
+  solveComplex(factor, work, k);
+  scatterComplex(factor.symbolic.perm, work, k, out.re, out.im!);
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -750,6 +748,7 @@ function schurComplex(
       const w0i = -I[c0 + b] * d0;
       const w1r = R[c1 + b] * d1;
       const w1i = -I[c1 + b] * d1;
+      if (w0r === 0 && w0i === 0 && w1r === 0 && w1i === 0) continue;
       const ub = b * m2;
       for (let a = b; a < m2; a++) {
         const a0r = R[c0 + a];
@@ -767,6 +766,7 @@ function schurComplex(
     for (let b = 0; b < m2; b++) {
       const w0r = R[c0 + b] * d0;
       const w0i = -I[c0 + b] * d0;
+      if (w0r === 0 && w0i === 0) continue;
       const ub = b * m2;
       for (let a = b; a < m2; a++) {
         const a0r = R[c0 + a];
@@ -810,6 +810,32 @@ function scatter(perm: Int32Array, work: Float64Array, columns: number, firstCol
     const base = c * n;
     const wc = firstColumn + c;
     for (let i = 0; i < n; i++) dst[base + perm[i]] = work[i * columns + wc];
+  }
+}
+
+/** Columns of src (column-major, k columns) into the interleaved complex work array, rows permuted (see solveComplex). */
+function gatherComplex(perm: Int32Array, re: Float64Array, im: Float64Array | null, k: number, work: Float64Array): void {
+  const n = perm.length;
+  for (let i = 0; i < n; i++) {
+    const from = perm[i];
+    const row = 2 * i * k;
+    for (let c = 0; c < k; c++) {
+      work[row + 2 * c] = re[c * n + from];
+      work[row + 2 * c + 1] = im ? im[c * n + from] : 0;
+    }
+  }
+}
+
+/** Inverse of gatherComplex. */
+function scatterComplex(perm: Int32Array, work: Float64Array, k: number, re: Float64Array, im: Float64Array): void {
+  const n = perm.length;
+  for (let i = 0; i < n; i++) {
+    const to = perm[i];
+    const row = 2 * i * k;
+    for (let c = 0; c < k; c++) {
+      re[c * n + to] = work[row + 2 * c];
+      im[c * n + to] = work[row + 2 * c + 1];
+    }
   }
 }
 
@@ -861,6 +887,19 @@ function forwardReal(factor: LdlFactor, W: Float64Array, k: number, c0: number, 
         }
         continue;
       }
+      if (w === 5) {
+        // k + guard = 5 for the usual k = 4: the block of five, without per-column tests.
+        for (let t = jj + 1; t < m; t++) {
+          const lv = L[base + t];
+          const dst = superRowIdx[rs + t] * k + c0;
+          W[dst] -= lv * x0;
+          W[dst + 1] -= lv * x1;
+          W[dst + 2] -= lv * x2;
+          W[dst + 3] -= lv * x3;
+          W[dst + 4] -= lv * x4;
+        }
+        continue;
+      }
       for (let t = jj + 1; t < m; t++) {
         const lv = L[base + t];
         const dst = superRowIdx[rs + t] * k + c0;
@@ -903,6 +942,16 @@ function backwardReal(factor: LdlFactor, W: Float64Array, k: number, c0: number,
           s2 += lv * W[src + 2];
           s3 += lv * W[src + 3];
         }
+      } else if (w === 5) {
+        for (let t = jj + 1; t < m; t++) {
+          const lv = L[base + t];
+          const src = superRowIdx[rs + t] * k + c0;
+          s0 += lv * W[src];
+          s1 += lv * W[src + 1];
+          s2 += lv * W[src + 2];
+          s3 += lv * W[src + 3];
+          s4 += lv * W[src + 4];
+        }
       } else {
         for (let t = jj + 1; t < m; t++) {
           const lv = L[base + t];
@@ -925,11 +974,38 @@ function backwardReal(factor: LdlFactor, W: Float64Array, k: number, c0: number,
   }
 }
 
-function solveComplex(factor: LdlFactor, Wr: Float64Array, Wi: Float64Array, k: number): void {
-  const { superCount, superStart, superRowPtr, superRowIdx, panelOffset, n } = factor.symbolic;
+/**
+ * Complex right-hand sides per sweep over the factor (their real and imaginary parts then live in registers).
+ * Measured on the unit disk at h = 1/160 (k = 5): one sweep of five takes about 35% less time than the former loop
+ * over separate real and imaginary arrays; groups of 3 + 2 were no faster than that loop (two passes over L).
+ */
+const COMPLEX_SOLVE_GROUP = 5;
+
+/**
+ * (L D L^H) X = B on the interleaved work array: W[2 (i k + c)] and W[2 (i k + c) + 1] are the real and imaginary
+ * parts of row i (permuted) of column c. Columns go in balanced groups of at most COMPLEX_SOLVE_GROUP; every entry
+ * sees the same operations in the same order whatever the grouping, so the result does not depend on it.
+ */
+function solveComplex(factor: LdlFactor, W: Float64Array, k: number): void {
+  const { n } = factor.symbolic;
+  const d = factor.d;
+  const groups = Math.ceil(k / COMPLEX_SOLVE_GROUP);
+  const size = Math.ceil(k / groups);
+  for (let c0 = 0; c0 < k; c0 += size) forwardComplex(factor, W, k, c0, Math.min(size, k - c0));
+  for (let i = 0; i < n; i++) {
+    const inv = 1 / d[i];
+    for (let q = 2 * i * k; q < 2 * (i + 1) * k; q++) W[q] *= inv;
+  }
+  for (let c0 = 0; c0 < k; c0 += size) backwardComplex(factor, W, k, c0, Math.min(size, k - c0));
+}
+
+/** L y = b on complex columns [c0, c0 + w) (w <= COMPLEX_SOLVE_GROUP): y[t] -= L[t][j] y[j]. */
+function forwardComplex(factor: LdlFactor, W: Float64Array, k: number, c0: number, w: number): void {
+  const { superCount, superStart, superRowPtr, superRowIdx, panelOffset } = factor.symbolic;
   const R = factor.lre;
   const I = factor.lim!;
-  const d = factor.d;
+  const k2 = 2 * k;
+  const o = 2 * c0;
   for (let s = 0; s < superCount; s++) {
     const f = superStart[s];
     const ncol = superStart[s + 1] - f;
@@ -938,29 +1014,72 @@ function solveComplex(factor: LdlFactor, Wr: Float64Array, Wi: Float64Array, k: 
     const off = panelOffset[s];
     for (let jj = 0; jj < ncol; jj++) {
       const base = off + jj * m;
-      const src = (f + jj) * k;
+      const src = (f + jj) * k2 + o;
+      const x0r = W[src];
+      const x0i = W[src + 1];
+      const x1r = w > 1 ? W[src + 2] : 0;
+      const x1i = w > 1 ? W[src + 3] : 0;
+      const x2r = w > 2 ? W[src + 4] : 0;
+      const x2i = w > 2 ? W[src + 5] : 0;
+      const x3r = w > 3 ? W[src + 6] : 0;
+      const x3i = w > 3 ? W[src + 7] : 0;
+      const x4r = w > 4 ? W[src + 8] : 0;
+      const x4i = w > 4 ? W[src + 9] : 0;
+      if (w === 5) {
+        // The usual block of five (k + guard for k = 4), without per-column tests; the same updates as below.
+        for (let t = jj + 1; t < m; t++) {
+          const lr = R[base + t];
+          const li = I[base + t];
+          if (lr === 0 && li === 0) continue;
+          const dst = superRowIdx[rs + t] * k2 + o;
+          W[dst] -= lr * x0r - li * x0i;
+          W[dst + 1] -= lr * x0i + li * x0r;
+          W[dst + 2] -= lr * x1r - li * x1i;
+          W[dst + 3] -= lr * x1i + li * x1r;
+          W[dst + 4] -= lr * x2r - li * x2i;
+          W[dst + 5] -= lr * x2i + li * x2r;
+          W[dst + 6] -= lr * x3r - li * x3i;
+          W[dst + 7] -= lr * x3i + li * x3r;
+          W[dst + 8] -= lr * x4r - li * x4i;
+          W[dst + 9] -= lr * x4i + li * x4r;
+        }
+        continue;
+      }
       for (let t = jj + 1; t < m; t++) {
         const lr = R[base + t];
         const li = I[base + t];
         if (lr === 0 && li === 0) continue;
-        const dst = superRowIdx[rs + t] * k;
-        for (let c = 0; c < k; c++) {
-          const xr = Wr[src + c];
-          const xi = Wi[src + c];
-          Wr[dst + c] -= lr * xr - li * xi;
-          Wi[dst + c] -= lr * xi + li * xr;
+        const dst = superRowIdx[rs + t] * k2 + o;
+        W[dst] -= lr * x0r - li * x0i;
+        W[dst + 1] -= lr * x0i + li * x0r;
+        if (w > 1) {
+          W[dst + 2] -= lr * x1r - li * x1i;
+          W[dst + 3] -= lr * x1i + li * x1r;
+          if (w > 2) {
+            W[dst + 4] -= lr * x2r - li * x2i;
+            W[dst + 5] -= lr * x2i + li * x2r;
+            if (w > 3) {
+              W[dst + 6] -= lr * x3r - li * x3i;
+              W[dst + 7] -= lr * x3i + li * x3r;
+              if (w > 4) {
+                W[dst + 8] -= lr * x4r - li * x4i;
+                W[dst + 9] -= lr * x4i + li * x4r;
+              }
+            }
+          }
         }
       }
     }
   }
-  for (let i = 0; i < n; i++) {
-    const inv = 1 / d[i];
-    for (let c = 0; c < k; c++) {
-      Wr[i * k + c] *= inv;
-      Wi[i * k + c] *= inv;
-    }
-  }
-  // Backward with L^H: x[j] -= conj(L[t][j]) x[t].
+}
+
+/** L^H x = y on complex columns [c0, c0 + w) (w <= COMPLEX_SOLVE_GROUP): x[j] -= conj(L[t][j]) x[t]. */
+function backwardComplex(factor: LdlFactor, W: Float64Array, k: number, c0: number, w: number): void {
+  const { superCount, superStart, superRowPtr, superRowIdx, panelOffset } = factor.symbolic;
+  const R = factor.lre;
+  const I = factor.lim!;
+  const k2 = 2 * k;
+  const o = 2 * c0;
   for (let s = superCount - 1; s >= 0; s--) {
     const f = superStart[s];
     const ncol = superStart[s + 1] - f;
@@ -969,17 +1088,108 @@ function solveComplex(factor: LdlFactor, Wr: Float64Array, Wi: Float64Array, k: 
     const off = panelOffset[s];
     for (let jj = ncol - 1; jj >= 0; jj--) {
       const base = off + jj * m;
-      const dst = (f + jj) * k;
+      const dst = (f + jj) * k2 + o;
+      // Running values start from the entry itself, so each subtraction rounds exactly as an in-place update would.
+      let s0r = W[dst];
+      let s0i = W[dst + 1];
+      let s1r = w > 1 ? W[dst + 2] : 0;
+      let s1i = w > 1 ? W[dst + 3] : 0;
+      let s2r = w > 2 ? W[dst + 4] : 0;
+      let s2i = w > 2 ? W[dst + 5] : 0;
+      let s3r = w > 3 ? W[dst + 6] : 0;
+      let s3i = w > 3 ? W[dst + 7] : 0;
+      let s4r = w > 4 ? W[dst + 8] : 0;
+      let s4i = w > 4 ? W[dst + 9] : 0;
+      if (w === 5) {
+        // The usual block of five, without per-column tests; the same updates as below.
+        for (let t = jj + 1; t < m; t++) {
+          const lr = R[base + t];
+          const li = I[base + t];
+          if (lr === 0 && li === 0) continue;
+          const src = superRowIdx[rs + t] * k2 + o;
+          const y0r = W[src];
+          const y0i = W[src + 1];
+          s0r -= lr * y0r + li * y0i;
+          s0i -= lr * y0i - li * y0r;
+          const y1r = W[src + 2];
+          const y1i = W[src + 3];
+          s1r -= lr * y1r + li * y1i;
+          s1i -= lr * y1i - li * y1r;
+          const y2r = W[src + 4];
+          const y2i = W[src + 5];
+          s2r -= lr * y2r + li * y2i;
+          s2i -= lr * y2i - li * y2r;
+          const y3r = W[src + 6];
+          const y3i = W[src + 7];
+          s3r -= lr * y3r + li * y3i;
+          s3i -= lr * y3i - li * y3r;
+          const y4r = W[src + 8];
+          const y4i = W[src + 9];
+          s4r -= lr * y4r + li * y4i;
+          s4i -= lr * y4i - li * y4r;
+        }
+        W[dst] = s0r;
+        W[dst + 1] = s0i;
+        W[dst + 2] = s1r;
+        W[dst + 3] = s1i;
+        W[dst + 4] = s2r;
+        W[dst + 5] = s2i;
+        W[dst + 6] = s3r;
+        W[dst + 7] = s3i;
+        W[dst + 8] = s4r;
+        W[dst + 9] = s4i;
+        continue;
+      }
       for (let t = jj + 1; t < m; t++) {
         const lr = R[base + t];
         const li = I[base + t];
         if (lr === 0 && li === 0) continue;
-        const src = superRowIdx[rs + t] * k;
-        for (let c = 0; c < k; c++) {
-          const xr = Wr[src + c];
-          const xi = Wi[src + c];
-          Wr[dst + c] -= lr * xr + li * xi;
-          Wi[dst + c] -= lr * xi - li * xr;
+        const src = superRowIdx[rs + t] * k2 + o;
+        const y0r = W[src];
+        const y0i = W[src + 1];
+        s0r -= lr * y0r + li * y0i;
+        s0i -= lr * y0i - li * y0r;
+        if (w > 1) {
+          const y1r = W[src + 2];
+          const y1i = W[src + 3];
+          s1r -= lr * y1r + li * y1i;
+          s1i -= lr * y1i - li * y1r;
+          if (w > 2) {
+            const y2r = W[src + 4];
+            const y2i = W[src + 5];
+            s2r -= lr * y2r + li * y2i;
+            s2i -= lr * y2i - li * y2r;
+            if (w > 3) {
+              const y3r = W[src + 6];
+              const y3i = W[src + 7];
+              s3r -= lr * y3r + li * y3i;
+              s3i -= lr * y3i - li * y3r;
+              if (w > 4) {
+                const y4r = W[src + 8];
+                const y4i = W[src + 9];
+                s4r -= lr * y4r + li * y4i;
+                s4i -= lr * y4i - li * y4r;
+              }
+            }
+          }
+        }
+      }
+      W[dst] = s0r;
+      W[dst + 1] = s0i;
+      if (w > 1) {
+        W[dst + 2] = s1r;
+        W[dst + 3] = s1i;
+        if (w > 2) {
+          W[dst + 4] = s2r;
+          W[dst + 5] = s2i;
+          if (w > 3) {
+            W[dst + 6] = s3r;
+            W[dst + 7] = s3i;
+            if (w > 4) {
+              W[dst + 8] = s4r;
+              W[dst + 9] = s4i;
+            }
+          }
         }
       }
     }
