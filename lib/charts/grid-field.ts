@@ -89,6 +89,14 @@ export function fieldCells(field: GridField, options: FieldCellOptions): { cells
   return { cells, factor };
 }
 
+/** Where a cell's rectangle is drawn: from (x, y) to (x2, y2) in data units. */
+const CELL_POSITION = {
+  x: { field: 'x', type: 'quantitative' },
+  x2: { field: 'x2' },
+  y: { field: 'y', type: 'quantitative' },
+  y2: { field: 'y2' },
+} as const;
+
 /** A rect-mark heat-map layer over `cells` with a colour scheme and legend title. */
 export function heatLayer(
   cells: FieldCell[],
@@ -98,10 +106,7 @@ export function heatLayer(
     data: { values: cells },
     mark: { type: 'rect', strokeWidth: 0 },
     encoding: {
-      x: { field: 'x', type: 'quantitative' },
-      x2: { field: 'x2' },
-      y: { field: 'y', type: 'quantitative' },
-      y2: { field: 'y2' },
+      ...CELL_POSITION,
       color: {
         field: 'v',
         type: 'quantitative',
@@ -128,10 +133,7 @@ export function categoryLayer(
     data: { values: cells },
     mark: { type: 'rect', strokeWidth: 0 },
     encoding: {
-      x: { field: 'x', type: 'quantitative' },
-      x2: { field: 'x2' },
-      y: { field: 'y', type: 'quantitative' },
-      y2: { field: 'y2' },
+      ...CELL_POSITION,
       color: {
         field: 'v',
         type: 'ordinal',

@@ -2,7 +2,7 @@
 // exact landings and undefined overlaps into blocks, the parity check, and the gap^2 quadratic fit that refines a point.
 import { Matrix, solve } from 'ml-matrix';
 import { type Complex, complexConj, complexMul } from './gauge-map';
-import { boundaryOfSites, siteSetProblem } from './loop-path';
+import { boundaryOfSites, holeSites, siteSetProblem } from './loop-path';
 import type { Vec2 } from './types';
 
 /**
@@ -232,48 +232,6 @@ function groupSites(uf: UnionFind, ns: number, nt: number): Map<number, [number,
   return groups;
 }
 
-/** Sites inside the bounding box of a set that are enclosed by it (not 4-connected to the outside). */
-function holeSites(sites: readonly [number, number][]): [number, number][] {
-  let sMin = Infinity;
-  let sMax = -Infinity;
-  let tMin = Infinity;
-  let tMax = -Infinity;
-  for (const [s, t] of sites) {
-    sMin = Math.min(sMin, s);
-    sMax = Math.max(sMax, s);
-    tMin = Math.min(tMin, t);
-    tMax = Math.max(tMax, t);
-  }
-  const w = sMax - sMin + 3;
-  const h = tMax - tMin + 3;
-  const inSet = new Uint8Array(w * h);
-  for (const [s, t] of sites) inSet[s - sMin + 1 + w * (t - tMin + 1)] = 1;
-  const outside = new Uint8Array(w * h);
-  const stack = [0];
-  outside[0] = 1;
-  while (stack.length) {
-    const c = stack.pop()!;
-    const ci = c % w;
-    const cj = (c - ci) / w;
-    for (const [di, dj] of [
-      [1, 0],
-      [-1, 0],
-      [0, 1],
-      [0, -1],
-    ]) {
-      const ni = ci + di;
-      const nj = cj + dj;
-      if (ni < 0 || nj < 0 || ni >= w || nj >= h) continue;
-      const idx = ni + w * nj;
-      if (outside[idx] || inSet[idx]) continue;
-      outside[idx] = 1;
-      stack.push(idx);
-    }
-  }
-  const out: [number, number][] = [];
-  for (let j = 0; j < h; j++) for (let i = 0; i < w; i++) if (!outside[i + w * j] && !inSet[i + w * j]) out.push([i + sMin - 1, j + tMin - 1]);
-  return out;
-}
 
 /** A sampled gap at a tube position. */
 export interface GapSample {

@@ -138,43 +138,7 @@ export function siteSetProblem(sites: readonly [number, number][]): string | nul
     }
   }
   if (seen.size !== set.size) return 'encloses grid sites that are not connected (the loop is too thin for this grid)';
-  // Holes: complement cells inside the bounding box not 4-connected to the outside of the box.
-  let iMin = Infinity;
-  let iMax = -Infinity;
-  let jMin = Infinity;
-  let jMax = -Infinity;
-  for (const [i, j] of sites) {
-    iMin = Math.min(iMin, i);
-    iMax = Math.max(iMax, i);
-    jMin = Math.min(jMin, j);
-    jMax = Math.max(jMax, j);
-  }
-  const w = iMax - iMin + 3;
-  const hgt = jMax - jMin + 3;
-  const outside = new Uint8Array(w * hgt);
-  const queue: number[] = [0];
-  outside[0] = 1;
-  while (queue.length > 0) {
-    const c = queue.pop()!;
-    const ci = c % w;
-    const cj = (c - ci) / w;
-    for (const [di, dj] of NEIGHBOURS) {
-      const ni = ci + di;
-      const nj = cj + dj;
-      if (ni < 0 || nj < 0 || ni >= w || nj >= hgt) continue;
-      const idx = ni + w * nj;
-      if (outside[idx] || set.has(siteKey(ni + iMin - 1, nj + jMin - 1))) continue;
-      outside[idx] = 1;
-      queue.push(idx);
-    }
-  }
-  for (let nj = 0; nj < hgt; nj++) {
-    for (let ni = 0; ni < w; ni++) {
-      if (!outside[ni + w * nj] && !set.has(siteKey(ni + iMin - 1, nj + jMin - 1))) {
-        return 'encloses a set of grid sites with a hole (the loop is too thin for this grid)';
-      }
-    }
-  }
+  if (holeSites(sites).length > 0) return 'encloses a set of grid sites with a hole (the loop is too thin for this grid)';
   return null;
 }
 
@@ -257,4 +221,52 @@ export function rasteriseLoop(loop: LoopSpec, grid: GridGeometry, orientation?: 
     orientation: orient,
     sites,
   };
+}
+
+/**
+ * The holes of a set of sites: sites inside its bounding box that are not in the set and not 4-connected to the
+ * outside of the box.
+ * @example
+ * holeSites([[0, 0], [1, 0], [2, 0], [0, 1], [2, 1], [0, 2], [1, 2], [2, 2]]); // [[1, 1]]
+ */
+export function holeSites(sites: readonly [number, number][]): [number, number][] {
+  let iMin = Infinity;
+  let iMax = -Infinity;
+  let jMin = Infinity;
+  let jMax = -Infinity;
+  for (const [i, j] of sites) {
+    iMin = Math.min(iMin, i);
+    iMax = Math.max(iMax, i);
+    jMin = Math.min(jMin, j);
+    jMax = Math.max(jMax, j);
+  }
+  // A one-site margin around the box, so that the outside is one connected region starting at cell 0.
+  const w = iMax - iMin + 3;
+  const hgt = jMax - jMin + 3;
+  const inSet = new Uint8Array(w * hgt);
+  for (const [i, j] of sites) inSet[i - iMin + 1 + w * (j - jMin + 1)] = 1;
+  const outside = new Uint8Array(w * hgt);
+  const stack: number[] = [0];
+  outside[0] = 1;
+  while (stack.length > 0) {
+    const c = stack.pop()!;
+    const ci = c % w;
+    const cj = (c - ci) / w;
+    for (const [di, dj] of NEIGHBOURS) {
+      const ni = ci + di;
+      const nj = cj + dj;
+      if (ni < 0 || nj < 0 || ni >= w || nj >= hgt) continue;
+      const idx = ni + w * nj;
+      if (outside[idx] || inSet[idx]) continue;
+      outside[idx] = 1;
+      stack.push(idx);
+    }
+  }
+  const holes: [number, number][] = [];
+  for (let nj = 0; nj < hgt; nj++) {
+    for (let ni = 0; ni < w; ni++) {
+      if (!outside[ni + w * nj] && !inSet[ni + w * nj]) holes.push([ni + iMin - 1, nj + jMin - 1]);
+    }
+  }
+  return holes;
 }
