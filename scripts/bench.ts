@@ -14,7 +14,7 @@ import { buildHamiltonian } from '../lib/physics/hamiltonian';
 import { buildLattice, snapTube } from '../lib/physics/lattice';
 import { tubesWithMoving } from '../lib/physics/parallel/scan-chunk';
 import { runDegeneracy } from '../lib/physics/tasks/degeneracy';
-import { degeneracySpecSchema } from '../lib/physics/spec/degeneracy';
+import { degeneracySpecSchema } from '../lib/physics/schemas/degeneracy';
 import { compileWell } from '../lib/physics/wells';
 import type { CsrMatrix, EigenOptions, EigenResult, Preconditioner, StateBlock } from '../lib/physics/types';
 

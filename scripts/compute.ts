@@ -8,7 +8,7 @@ import { isMainThread, parentPort, Worker, workerData } from 'node:worker_thread
 import { canonicalJson } from '../lib/physics/canonical';
 import { AbortError, LimitError, SpecError } from '../lib/physics/errors';
 import { runTask } from '../lib/physics/run-task';
-import { parseTaskSpec, type TaskSpec } from '../lib/physics/spec';
+import { parseTaskSpec, type TaskSpec } from '../lib/physics/schemas';
 
 const USAGE = 'usage: npm run -s compute -- <spec.json | -> [--pretty]';
 /** Progress lines are written at most every this many percent. */

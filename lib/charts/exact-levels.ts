@@ -1,6 +1,6 @@
 // Exact reference levels drawn over computed ones: a disk of radius R with a tube of flux alpha at its centre
 // (E = j_{|m - alpha|, n}^2 / R^2) and a rectangle a x b (E = pi^2 (n^2/a^2 + m^2/b^2)); includes a real-order Bessel J_nu.
-import type { WellSpec } from '@/lib/physics/spec/common';
+import type { WellSpec } from '@/lib/physics/schemas/common';
 
 /** Lanczos coefficients (g = 7, n = 9), good to about 1e-15 relative for Re z > 0.5 (Numerical Recipes 3rd ed. §6.1). */
 const LANCZOS_G = 7;

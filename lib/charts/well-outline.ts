@@ -1,6 +1,6 @@
 // Outlines of a well (closed polylines in units of L) from its spec, for drawing the wall over maps and loop figures:
 // circles, ellipses, boxes, polygons, annuli, stadiums, the extent of a mask, and every part of a union or difference.
-import type { WellSpec } from '@/lib/physics/spec/common';
+import type { WellSpec } from '@/lib/physics/schemas/common';
 import type { DisplayUnits } from '@/lib/units';
 import { OUTLINE_COLOUR, polylineLayer, type SpecPart } from './common';
 

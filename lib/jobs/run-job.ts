@@ -15,7 +15,7 @@ import {
 } from '@/db/queries/runs';
 import { AbortError, LimitError, SpecError } from '@/lib/physics/errors';
 import { runTask } from '@/lib/physics/run-task';
-import { parseTaskSpec } from '@/lib/physics/spec';
+import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { inputHash } from '@/lib/runs/input-hash';
 import { toStoredForm } from '@/lib/runs/stored-form';

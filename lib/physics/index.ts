@@ -2,7 +2,7 @@
 // Import from '@/lib/physics' unless a module needs a private piece.
 export * from './errors';
 export type * from './types';
-export { parseTaskSpec, taskSpecSchema, type TaskSpec, type TaskSpecInput } from './spec';
+export { parseTaskSpec, taskSpecSchema, type TaskSpec, type TaskSpecInput } from './schemas';
 export { runTask, TASK_NAMES, type TaskName, type TaskResult, type RunTaskContext } from './run-task';
 export { runSpectrum, type SpectrumResult, type SpectrumStates } from './tasks/spectrum';
 export { lowestEigenpairs, degenerateGroups, fixPhases } from './eigen';

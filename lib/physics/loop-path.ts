@@ -1,7 +1,7 @@
 // Rasterises a closed loop (circle or polygon) into a cycle of adjacent plaquette centres (PHYSICS.md section 3),
 // and walks the counter-clockwise boundary of any simply connected set of grid sites (shared with the degeneracy scan).
 import { SpecError } from './errors';
-import type { LoopSpec } from './spec/common';
+import type { LoopSpec } from './schemas/common';
 import type { Vec2 } from './types';
 
 /** Grid geometry: spacing h and site offset in units of h (sites at ((I + 1/2 + fx) h, (J + 1/2 + fy) h)). */

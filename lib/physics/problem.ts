@@ -4,7 +4,7 @@ import { buildHamiltonian } from './hamiltonian';
 import { buildLattice, snapTube } from './lattice';
 import { checkBudget } from './limits';
 import { compilePotential } from './potential';
-import type { GridSpec, TubeSpec, WellSpec } from './spec/common';
+import type { GridSpec, TubeSpec, WellSpec } from './schemas/common';
 import type { CsrMatrix, Lattice, SnappedTube, Vec2 } from './types';
 import { compileWell, type Well } from './wells';
 import { SpecError } from './errors';

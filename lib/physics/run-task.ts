@@ -1,6 +1,6 @@
 // runTask: one entry point for every solver task, dispatching on `task` (CLI, job worker and tests call this).
 // Each task is `(spec, ctx) => Promise<result>`; results are plain JSON-ready objects with a `diagnostics` field.
-import type { TaskSpec } from './spec';
+import type { TaskSpec } from './schemas';
 import { runConvergence, type ConvergenceResult } from './tasks/convergence';
 import { runDegeneracy, type DegeneracyResult } from './tasks/degeneracy';
 import { runFluxSweep, type FluxSweepResult } from './tasks/flux-sweep';

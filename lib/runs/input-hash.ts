@@ -7,7 +7,7 @@ import { canonicalJson } from '@/lib/physics/canonical';
  * SHA-256 (hex) of `canonicalJson({ params, solverVersion })`. Pass the parameters AFTER the solver's schema has
  * filled in defaults, so that `{levels: 6}` written out and left to its default hash the same.
  *
- * @param params - a validated task spec (lib/physics/spec `parseTaskSpec` output)
+ * @param params - a validated task spec (lib/physics/schemas `parseTaskSpec` output)
  * @param solverVersion - lib/physics `SOLVER_VERSION`; a new solver version never reuses an old result
  * @returns 64 lower-case hex digits
  * @example

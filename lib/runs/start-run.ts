@@ -8,7 +8,7 @@ import type { Figure, Run } from '@/db/schema';
 import { HttpError } from '@/lib/http/errors';
 import { enqueueRun } from '@/lib/jobs/queue';
 import { SpecError } from '@/lib/physics/errors';
-import { parseTaskSpec } from '@/lib/physics/spec';
+import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { inputHash } from './input-hash';
 

@@ -4,7 +4,7 @@ import { diffJson, summarizeDiff, type JsonDiff } from '@/lib/canonical-diff';
 import { resultHash } from '@/lib/physics/canonical';
 import { SpecError } from '@/lib/physics/errors';
 import { runTask } from '@/lib/physics/run-task';
-import { parseTaskSpec, zodIssuesToSpecIssues } from '@/lib/physics/spec';
+import { parseTaskSpec, zodIssuesToSpecIssues } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { toStoredForm } from '@/lib/runs/stored-form';
 import { bundleSchema, type SnapshotBundle } from './bundle';

@@ -1,7 +1,7 @@
 // Figure create/update payloads and URL ids, shared by the figure forms, the route handlers, the worker and the seed.
-// A figure's parameters are a solver task spec validated by the solver's own schema (lib/physics/spec), kind === params.task.
+// A figure's parameters are a solver task spec validated by the solver's own schema (lib/physics/schemas), kind === params.task.
 import { z } from 'zod';
-import { taskSpecSchema, zodIssuesToSpecIssues, type TaskSpec } from '@/lib/physics/spec';
+import { taskSpecSchema, zodIssuesToSpecIssues, type TaskSpec } from '@/lib/physics/schemas';
 
 /** The figure kinds: one per solver task (lib/physics/run-task.ts `TASK_NAMES`; tests/runs checks they agree). */
 export const FIGURE_KINDS = [

@@ -1,7 +1,7 @@
 // Small real solver results for the chart and export tests, one per figure kind, on coarse grids so the suite stays quick.
 // Computed through lib/physics runTask exactly as the worker does.
 import { runTask } from '@/lib/physics/run-task';
-import { parseTaskSpec, type TaskSpec } from '@/lib/physics/spec';
+import { parseTaskSpec, type TaskSpec } from '@/lib/physics/schemas';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };
 

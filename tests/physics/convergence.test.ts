@@ -3,8 +3,8 @@
 // Richardson value (Richardson 1911) is closer to the exact level than the finest grid: j01^2 (DLMF section 10.21) and
 // 2 pi^2 for the unit square (E = pi^2 (n^2/a^2 + m^2/b^2)).
 import { describe, expect, it } from 'vitest';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { ConvergenceSpec } from '@/lib/physics/spec/convergence';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { ConvergenceSpec } from '@/lib/physics/schemas/convergence';
 import { observedOrder, richardson, runConvergence } from '@/lib/physics/tasks/convergence';
 
 const J01 = 2.404825557695773; // DLMF section 10.21

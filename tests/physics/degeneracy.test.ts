@@ -4,8 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
 import { fitGapSquaredVertex, resolveLoops } from '@/lib/physics/degeneracy-refine';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { DegeneracySpec } from '@/lib/physics/spec/degeneracy';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { DegeneracySpec } from '@/lib/physics/schemas/degeneracy';
 import { runDegeneracy } from '@/lib/physics/tasks/degeneracy';
 
 /** An invented non-symmetric pentagon inside the unit box (test geometry, not a check value). */

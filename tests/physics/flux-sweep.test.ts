@@ -2,8 +2,8 @@
 // and tracked levels that cross where the sorted ones touch (half tube at the centre of the disk: exact double
 // degeneracy, PHYSICS.md section 2; levels j_{|m - alpha|,n}^2, DLMF section 10.21).
 import { describe, expect, it } from 'vitest';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { FluxSweepSpec } from '@/lib/physics/spec/flux-sweep';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { FluxSweepSpec } from '@/lib/physics/schemas/flux-sweep';
 import { runFluxSweep } from '@/lib/physics/tasks/flux-sweep';
 
 function spec(tubeAt: [number, number], steps: number): FluxSweepSpec {

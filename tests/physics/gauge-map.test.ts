@@ -7,7 +7,7 @@ import { buildLattice, snapTube } from '@/lib/physics/lattice';
 import { rasteriseLoop } from '@/lib/physics/loop-path';
 import type { CsrMatrix, Lattice, SnappedTube } from '@/lib/physics/types';
 import { compileWell } from '@/lib/physics/wells';
-import type { LoopSpec } from '@/lib/physics/spec/common';
+import type { LoopSpec } from '@/lib/physics/schemas/common';
 
 function entry(m: CsrMatrix, r: number, c: number): [number, number] {
   for (let p = m.rowPtr[r]; p < m.rowPtr[r + 1]; p++) if (m.colIdx[p] === c) return [m.re[p], m.im ? m.im[p] : 0];

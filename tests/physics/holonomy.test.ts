@@ -3,8 +3,8 @@
 // flux (Berry 1984), its conjugate clockwise, and |W| = 1 for loops that stay outside the well.
 import { describe, expect, it } from 'vitest';
 import { AbortError, SpecError } from '@/lib/physics/errors';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { HolonomySpec } from '@/lib/physics/spec/holonomy';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { HolonomySpec } from '@/lib/physics/schemas/holonomy';
 import { runHolonomy } from '@/lib/physics/tasks/holonomy';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };

@@ -2,8 +2,8 @@
 // tube; no false line runs along the branch cut; lines end on half tubes or the wall; complex problems are refused.
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { NodalLinesSpec } from '@/lib/physics/spec/nodal-lines';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { NodalLinesSpec } from '@/lib/physics/schemas/nodal-lines';
 import { runNodalLines } from '@/lib/physics/tasks/nodal-lines';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };

@@ -7,9 +7,9 @@ import { runChunks } from '@/lib/physics/parallel/pool';
 import { type ChunkResult, type ScanJob, scanChunks } from '@/lib/physics/parallel/scan-chunk';
 import { compileWell } from '@/lib/physics/wells';
 import { resultHash } from '@/lib/physics/canonical';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { DegeneracySpec } from '@/lib/physics/spec/degeneracy';
-import type { PositionSweepSpec } from '@/lib/physics/spec/position-sweep';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { DegeneracySpec } from '@/lib/physics/schemas/degeneracy';
+import type { PositionSweepSpec } from '@/lib/physics/schemas/position-sweep';
 import { runDegeneracy } from '@/lib/physics/tasks/degeneracy';
 import { runPositionSweep } from '@/lib/physics/tasks/position-sweep';
 

@@ -2,8 +2,8 @@
 // followed by time reversal maps a tube of flux alpha at (x, 0) to one at (-x, 0), so E(x) = E(-x) for every alpha
 // (Byers & Yang 1961 for alpha -> -alpha); the force F = -grad E0 is then odd in x and vanishes at the centre.
 import { describe, expect, it } from 'vitest';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { PositionSweepSpec } from '@/lib/physics/spec/position-sweep';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { PositionSweepSpec } from '@/lib/physics/schemas/position-sweep';
 import { type PathSweepResult, type RegionSweepResult, runPositionSweep, walkPolyline } from '@/lib/physics/tasks/position-sweep';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };

@@ -1,10 +1,10 @@
 // Tests of the task spec schemas: defaults, per-field messages for invalid input, branch-aware union errors.
-// Messages are the ones written in lib/physics/spec/*.ts.
+// Messages are the ones written in lib/physics/schemas/*.ts.
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
-import { parseTaskSpec } from '@/lib/physics/spec';
+import { parseTaskSpec } from '@/lib/physics/schemas';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };
 

@@ -2,8 +2,8 @@
 // the flux symmetries of Byers & Yang (1961), the exact lattice degeneracies, states and determinism.
 import { describe, expect, it } from 'vitest';
 import { canonicalJson, resultHash } from '@/lib/physics/canonical';
-import { parseTaskSpec } from '@/lib/physics/spec';
-import type { SpectrumSpec } from '@/lib/physics/spec/spectrum';
+import { parseTaskSpec } from '@/lib/physics/schemas';
+import type { SpectrumSpec } from '@/lib/physics/schemas/spectrum';
 import { runSpectrum } from '@/lib/physics/tasks/spectrum';
 
 const J01_SQ = 2.404825557695773 ** 2; // DLMF 10.21, j_{0,1}

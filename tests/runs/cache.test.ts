@@ -8,7 +8,7 @@ import { getRunById } from '@/db/queries/runs';
 import { results, runs } from '@/db/schema';
 import { executeRun } from '@/lib/jobs/run-job';
 import { canonicalJson, resultHash } from '@/lib/physics/canonical';
-import { parseTaskSpec } from '@/lib/physics/spec';
+import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { inputHash } from '@/lib/runs/input-hash';
 import { startRun } from '@/lib/runs/start-run';

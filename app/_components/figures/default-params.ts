@@ -1,7 +1,7 @@
 // Sensible starting parameters for a new figure of each kind: small grids that run in seconds, a unit disk or a
 // lopsided polygon, half tubes where the physics needs a real problem. Every value is a valid solver spec.
 import type { FigureKind } from '@/lib/validations/figure';
-import type { TaskSpecInput } from '@/lib/physics/spec';
+import type { TaskSpecInput } from '@/lib/physics/schemas';
 
 const unitDisk = { disk: { center: [0, 0] as [number, number], radius: 1 } };
 /** A quadrilateral with no symmetry (so degeneracy points are not forced onto a mirror line). */

@@ -1,7 +1,7 @@
 // A to-scale SVG drawing of a task spec: the well (unions, differences, masks), fixed tubes, the moving tube's
 // loop / region / path, the lattice when it is coarse enough to see, and a scale bar. Pure SVG: server or client.
 import type { ReactNode } from 'react';
-import type { WellSpec } from '@/lib/physics/spec/common';
+import type { WellSpec } from '@/lib/physics/schemas/common';
 import { niceLength, overlayBox, overlayOf, signedArea, type Point } from './well-geometry';
 
 export interface WellDrawingProps {

@@ -1,6 +1,6 @@
 // Geometry of a solver spec for drawing: bounding boxes of wells (recursive unions and differences), loops,
 // regions and paths, plus the overlays a figure kind carries (fixed tubes, moving tube, loop, region, path).
-import type { WellSpec } from '@/lib/physics/spec/common';
+import type { WellSpec } from '@/lib/physics/schemas/common';
 
 export type Point = [number, number];
 export interface Box {

@@ -3,7 +3,7 @@
 import { lowestEigenpairs } from '../eigen';
 import { LimitError } from '../errors';
 import { buildHamiltonian } from '../hamiltonian';
-import type { ConvergenceSpec } from '../spec/convergence';
+import type { ConvergenceSpec } from '../schemas/convergence';
 import type { Vec2 } from '../types';
 import { checkAbort, elapsedMs, prepareTask, taskMethod, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, yieldToLoop } from './task-support';
 

@@ -17,7 +17,7 @@ import {
 } from '../degeneracy-refine';
 import { runChunks } from '../parallel/pool';
 import { type ChunkResult, type ScanJob, scanChunks, tubesWithMoving } from '../parallel/scan-chunk';
-import { DEGENERACY_NEEDS_REAL, type DegeneracySpec } from '../spec/degeneracy';
+import { DEGENERACY_NEEDS_REAL, type DegeneracySpec } from '../schemas/degeneracy';
 import type { Lattice, Vec2 } from '../types';
 import {
   elapsedMs,

@@ -3,7 +3,7 @@
 import { lowestEigenpairs } from '../eigen';
 import { buildHamiltonian } from '../hamiltonian';
 import { LevelTracker } from '../level-tracking';
-import type { FluxSweepSpec } from '../spec/flux-sweep';
+import type { FluxSweepSpec } from '../schemas/flux-sweep';
 import type { StateBlock } from '../types';
 import {
   checkAbort,

@@ -6,7 +6,7 @@ import { gaugeMapForStep, gaugedOverlap, applyGaugeMap } from '../gauge-map';
 import { buildHamiltonian, isRealFlux } from '../hamiltonian';
 import { rasteriseLoop } from '../loop-path';
 import { tubesWithMoving } from '../parallel/scan-chunk';
-import type { HolonomySpec } from '../spec/holonomy';
+import type { HolonomySpec } from '../schemas/holonomy';
 import type { StateBlock, Vec2 } from '../types';
 import {
   boxOf,

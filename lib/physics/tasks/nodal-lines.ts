@@ -4,7 +4,7 @@ import { lowestEigenpairs } from '../eigen';
 import { SpecError } from '../errors';
 import { buildHamiltonian, isRealFlux } from '../hamiltonian';
 import { type NodalLine, nodalLines } from '../marching-squares';
-import { NODAL_LINES_NEED_REAL, type NodalLinesSpec } from '../spec/nodal-lines';
+import { NODAL_LINES_NEED_REAL, type NodalLinesSpec } from '../schemas/nodal-lines';
 import { elapsedMs, gridReport, prepareTask, taskMethod, progressReporter, runtimeFacts, TASK_DEFAULT_TOL, type TaskRunContext, tubeReport } from './task-support';
 
 /** Result of the nodal-lines task. */

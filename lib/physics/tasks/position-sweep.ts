@@ -8,7 +8,7 @@ import { nearestPlaquette, plaquetteCentre } from '../lattice';
 import { LevelTracker } from '../level-tracking';
 import { runChunks } from '../parallel/pool';
 import { type ScanJob, scanChunks, tubesWithMoving } from '../parallel/scan-chunk';
-import type { PositionSweepSpec } from '../spec/position-sweep';
+import type { PositionSweepSpec } from '../schemas/position-sweep';
 import type { StateBlock, Vec2 } from '../types';
 import { TRACKING_DEGENERACY_REL, TRACKING_GUARD_LEVELS } from './flux-sweep';
 import {

@@ -4,7 +4,7 @@ import { degenerateGroups, lowestEigenpairs } from '../eigen';
 import { AbortError, SpecError } from '../errors';
 import { isRealFlux } from '../hamiltonian';
 import { checkBudget } from '../limits';
-import type { SpectrumSpec } from '../spec/spectrum';
+import type { SpectrumSpec } from '../schemas/spectrum';
 import { prepareProblem } from '../problem';
 import type { EigenOptions, Lattice, StateBlock, TaskContext, Vec2 } from '../types';
 import { elapsedMs, gridReport, type GridReport, runtimeFacts, TASK_DEFAULT_TOL, tubeReport } from './task-support';

@@ -2,7 +2,7 @@
 // throttled progress, wall-clock diagnostics, and the grid description every result reports.
 import { AbortError } from '../errors';
 import { prepareProblem } from '../problem';
-import type { BaseProblemSpec } from '../spec/common';
+import type { BaseProblemSpec } from '../schemas/common';
 import type { EigenOptions, Lattice, SnappedTube, TaskContext, Vec2 } from '../types';
 
 /** Context handed to every task: progress, cancellation and the mask-file resolver. */

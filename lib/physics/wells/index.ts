@@ -1,7 +1,7 @@
 // compileWell: turns a validated well spec into a Well (strict-inside test and bounding box).
 // Mask files are read through the caller's resolveFile; a missing or unreadable file is a SpecError naming it.
 import { SpecError } from '../errors';
-import type { WellSpec } from '../spec/common';
+import type { WellSpec } from '../schemas/common';
 import { compileAnnulus } from './annulus';
 import { compileDisk } from './disk';
 import { compileEllipse } from './ellipse';

@@ -16,7 +16,7 @@ import {
   nodalLinesSpecSchema,
   positionSweepSpecSchema,
   spectrumSpecSchema,
-} from '@/lib/physics/spec';
+} from '@/lib/physics/schemas';
 import type { FigureKind } from '@/lib/validations/figure';
 import { Button } from '../../../../_components/button';
 import { WellDrawing } from '../../../../_components/figures/well-drawing';
