@@ -9,6 +9,7 @@ import rehypeKatex from 'rehype-katex';
 import remarkMath from 'remark-math';
 import type { Node } from 'unist';
 import { visit } from 'unist-util-visit';
+import { KATEX_OPTIONS } from './math-limits';
 import { remarkSafe } from './remark-safe';
 
 /** The remark/rehype set every figure note is compiled with (also used by checkNoteSource). */
@@ -17,7 +18,7 @@ export const noteCompileOptions = {
   outputFormat: 'function-body' as const,
   development: false,
   remarkPlugins: [remarkSafe, remarkMath],
-  rehypePlugins: [rehypeKatex],
+  rehypePlugins: [[rehypeKatex, KATEX_OPTIONS]] as [typeof rehypeKatex, typeof KATEX_OPTIONS][],
 };
 
 /**

@@ -1,5 +1,5 @@
 // The safe-MDX gate: a remark plugin that walks a note's syntax tree BEFORE any JavaScript is generated and refuses imports,
-// exports, expressions, elements outside the allow-list, spread or undeclared props, non-literal prop values and unsafe URLs.
+// exports, expressions, elements outside the allow-list, spread or undeclared props, literal-less props, bad URLs, huge math.
 import type { Root } from 'mdast';
 import type { Node } from 'unist';
 import { visit } from 'unist-util-visit';
@@ -10,6 +10,7 @@ import {
   declaredProps,
   isAllowedComponent,
 } from './allowed-components';
+import { formulaProblem, MAX_FORMULAS, MAX_MATH_CHARS } from './math-limits';
 
 /** One refusal, with the 1-based line and column of the offending syntax. */
 export interface MdxSafetyIssue {
@@ -226,9 +227,24 @@ export function findUnsafeNodes(tree: Root): MdxSafetyIssue[] {
     const { line, column } = where(at, fallback);
     issues.push({ line, column, message: `line ${line}: ${text}` });
   };
+  let formulas = 0;
+  let mathChars = 0;
   visit(tree as Node, (node: Node) => {
     const n = node as Positioned & { value?: string; url?: string; data?: { estree?: { body?: EstreeNode[] } } };
     switch (node.type) {
+      case 'math':
+      case 'inlineMath': {
+        formulas += 1;
+        if (formulas === MAX_FORMULAS + 1) report(n, `a note may hold at most ${MAX_FORMULAS} formulas`);
+        const before = mathChars;
+        mathChars += (n.value ?? '').length;
+        if (before <= MAX_MATH_CHARS && mathChars > MAX_MATH_CHARS) {
+          report(n, `the note holds more than ${MAX_MATH_CHARS} characters of math; split it into several notes`);
+        }
+        const problem = formulaProblem(n.value ?? '');
+        if (problem) report(n, problem);
+        return 'skip';
+      }
       case 'mdxjsEsm': {
         const body = n.data?.estree?.body ?? [];
         const isImport = body.some((s) => s.type === 'ImportDeclaration') || /^\s*import\b/.test(n.value ?? '');
