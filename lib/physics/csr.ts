@@ -1,5 +1,6 @@
 // Sparse kernels on CsrMatrix: block matrix-vector products (real and complex) and a dense copy for tests.
 // Blocks are column-major (vector j at [j * n, (j + 1) * n)); each row of the matrix is read once for all columns.
+import { csrMatVecFiveComplex, csrMatVecFiveReal, MATVEC_GROUP } from './csr-five-columns';
 import type { CsrMatrix, StateBlock } from './types';
 
 /**
@@ -16,7 +17,11 @@ export function csrMatVec(A: CsrMatrix, x: StateBlock, y: StateBlock): void {
   csrMatVecColumns(A, x.re, x.im, y.re, y.im, x.k);
 }
 
-/** Same as csrMatVec on raw column-major arrays with k columns (used by the eigensolvers on sub-blocks). */
+/**
+ * Same as csrMatVec on raw column-major arrays with k columns (used by the eigensolvers on sub-blocks). Whole groups
+ * of five columns go through the five-column kernels (csr-five-columns.ts), the rest column by column: every sum
+ * runs over the row in the same order either way, so the bits do not depend on the grouping.
+ */
 export function csrMatVecColumns(
   A: CsrMatrix,
   xr: Float64Array,
@@ -35,10 +40,12 @@ export function csrMatVecColumns(
       }
       return;
     }
+    let c0 = 0;
+    for (; c0 + MATVEC_GROUP <= k; c0 += MATVEC_GROUP) csrMatVecFiveReal(A, xr, yr, c0 * n);
     for (let r = 0; r < n; r++) {
       const start = rowPtr[r];
       const end = rowPtr[r + 1];
-      for (let c = 0, off = 0; c < k; c++, off += n) {
+      for (let c = c0, off = c0 * n; c < k; c++, off += n) {
         let s = 0;
         for (let p = start; p < end; p++) s += re[p] * xr[off + colIdx[p]];
         yr[off + r] = s;
@@ -48,10 +55,14 @@ export function csrMatVecColumns(
     return;
   }
   if (yi === null) throw new TypeError('csrMatVec: y.im must be allocated for a complex matrix or vector');
+  let c0 = 0;
+  if (im !== null && xi !== null) {
+    for (; c0 + MATVEC_GROUP <= k; c0 += MATVEC_GROUP) csrMatVecFiveComplex(A, im, xr, xi, yr, yi, c0 * n);
+  }
   for (let r = 0; r < n; r++) {
     const start = rowPtr[r];
     const end = rowPtr[r + 1];
-    for (let c = 0, off = 0; c < k; c++, off += n) {
+    for (let c = c0, off = c0 * n; c < k; c++, off += n) {
       let sr = 0;
       let si = 0;
       for (let p = start; p < end; p++) {

@@ -13,4 +13,4 @@ export { compileWell, type Well } from './wells';
 export { compilePotential } from './potential';
 export { checkBudget, currentBudget, estimateMemoryBytes } from './limits';
 export { canonicalJson, resultHash } from './canonical';
-export { SOLVER_VERSION, gitCommit } from './version';
+export { SOLVER_REVISION, SOLVER_VERSION } from './version';

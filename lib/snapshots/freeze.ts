@@ -6,7 +6,7 @@ import { db as defaultDb } from '@/db';
 import { pgErrorCode, UNIQUE_VIOLATION } from '@/db/queries/pg-errors';
 import { figures, results, runs, snapshots, type Snapshot } from '@/db/schema';
 import { conflict, notFound } from '@/lib/http/errors';
-import { gitCommit } from '@/lib/physics/version';
+import { buildCommit } from '@/lib/build-info';
 
 /**
  * Freeze a succeeded run as the next snapshot version of its figure.
@@ -28,7 +28,7 @@ export async function freezeRun({
   user: { id: string } | null;
   database?: Db;
 }): Promise<Snapshot> {
-  const commit = gitCommit();
+  const commit = buildCommit();
   try {
     return await database.transaction(async (tx) => {
       const [run] = await tx.select().from(runs).where(eq(runs.id, runId)).limit(1);

@@ -1,5 +1,6 @@
 // Polynomial preconditioner for LOBPCG: a few steps of Chebyshev iteration on (H - lo) x = r, using only sparse products.
 // It inverts H approximately on the upper part of the spectrum, which is what slows unpreconditioned LOBPCG.
+import { csrMatVecColumns } from '../csr';
 import type { CsrMatrix, Preconditioner, StateBlock } from '../types';
 
 /** Default polynomial degree when none is asked for explicitly (see chebyshevDegreeFor). */
@@ -66,6 +67,8 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
   let dirIm: Float64Array | null = null;
   let next = new Float64Array(0);
   let nextIm: Float64Array | null = null;
+  let prod = new Float64Array(0);
+  let prodIm: Float64Array | null = null;
 
   return (r: StateBlock, out: StateBlock) => {
     const k = r.k;
@@ -79,6 +82,8 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
       resIm = complex ? new Float64Array(len) : null;
       dirIm = complex ? new Float64Array(len) : null;
       nextIm = complex ? new Float64Array(len) : null;
+      prod = new Float64Array(len);
+      prodIm = complex ? new Float64Array(len) : null;
     }
     const xr = out.re;
     const xi = complex ? out.im : null;
@@ -101,8 +106,13 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
       const rhoNext = 1 / (2 * sigma1 - rho);
       const c1 = rhoNext * rho;
       const c2 = (2 * rhoNext) / delta;
-      if (resIm && dirIm && nextIm && xi) chebyshevStepComplex(A, k, lo, c1, c2, xr, xi, res, resIm, dir, dirIm, next, nextIm);
-      else chebyshevStepReal(A, k, lo, c1, c2, xr, res, dir, next);
+      if (resIm && dirIm && nextIm && prodIm && xi) {
+        csrMatVecColumns(A, dir, dirIm, prod, prodIm, k);
+        chebyshevUpdateComplex(len, lo, c1, c2, xr, xi, res, resIm, dir, dirIm, prod, prodIm, next, nextIm);
+      } else {
+        csrMatVecColumns(A, dir, null, prod, null, k);
+        chebyshevUpdateReal(len, lo, c1, c2, xr, res, dir, prod, next);
+      }
       [dir, next] = [next, dir];
       if (dirIm && nextIm) [dirIm, nextIm] = [nextIm, dirIm];
       rho = rhoNext;
@@ -113,41 +123,32 @@ export function chebyshevPreconditioner(A: CsrMatrix, degree = DEFAULT_CHEBYSHEV
 }
 
 /**
- * One fused Chebyshev step for k real columns: x += d; r -= (A - lo) d; d' = c1 d + c2 r, row by row in one pass
- * (the sparse product reads d, the new direction goes to a second buffer).
+ * The vector part of one Chebyshev step for real columns, given s = A d (shared CSR product, five columns per pass):
+ * x += d; r -= (A - lo) d; d' = c1 d + c2 r, element by element.
  */
-function chebyshevStepReal(
-  A: CsrMatrix,
-  k: number,
+function chebyshevUpdateReal(
+  len: number,
   lo: number,
   c1: number,
   c2: number,
   x: Float64Array,
   res: Float64Array,
   d: Float64Array,
+  s: Float64Array,
   dNext: Float64Array,
 ): void {
-  const { n, rowPtr, colIdx, re } = A;
-  for (let row = 0; row < n; row++) {
-    const start = rowPtr[row];
-    const end = rowPtr[row + 1];
-    for (let c = 0, off = 0; c < k; c++, off += n) {
-      let s = 0;
-      for (let p = start; p < end; p++) s += re[p] * d[off + colIdx[p]];
-      const i = off + row;
-      const di = d[i];
-      x[i] += di;
-      const ri = res[i] - (s - lo * di);
-      res[i] = ri;
-      dNext[i] = c1 * di + c2 * ri;
-    }
+  for (let i = 0; i < len; i++) {
+    const di = d[i];
+    x[i] += di;
+    const ri = res[i] - (s[i] - lo * di);
+    res[i] = ri;
+    dNext[i] = c1 * di + c2 * ri;
   }
 }
 
-/** The same step for complex columns and a Hermitian (possibly complex) matrix. */
-function chebyshevStepComplex(
-  A: CsrMatrix,
-  k: number,
+/** The same update for complex columns, given s = A d (A Hermitian, possibly complex). */
+function chebyshevUpdateComplex(
+  len: number,
   lo: number,
   c1: number,
   c2: number,
@@ -157,34 +158,21 @@ function chebyshevStepComplex(
   resIm: Float64Array,
   dRe: Float64Array,
   dIm: Float64Array,
+  sRe: Float64Array,
+  sIm: Float64Array,
   nRe: Float64Array,
   nIm: Float64Array,
 ): void {
-  const { n, rowPtr, colIdx, re, im } = A;
-  for (let row = 0; row < n; row++) {
-    const start = rowPtr[row];
-    const end = rowPtr[row + 1];
-    for (let c = 0, off = 0; c < k; c++, off += n) {
-      let sr = 0;
-      let si = 0;
-      for (let p = start; p < end; p++) {
-        const q = off + colIdx[p];
-        const ar = re[p];
-        const ai = im === null ? 0 : im[p];
-        sr += ar * dRe[q] - ai * dIm[q];
-        si += ar * dIm[q] + ai * dRe[q];
-      }
-      const i = off + row;
-      const a = dRe[i];
-      const b = dIm[i];
-      xr[i] += a;
-      xi[i] += b;
-      const rr = resRe[i] - (sr - lo * a);
-      const ri = resIm[i] - (si - lo * b);
-      resRe[i] = rr;
-      resIm[i] = ri;
-      nRe[i] = c1 * a + c2 * rr;
-      nIm[i] = c1 * b + c2 * ri;
-    }
+  for (let i = 0; i < len; i++) {
+    const a = dRe[i];
+    const b = dIm[i];
+    xr[i] += a;
+    xi[i] += b;
+    const rr = resRe[i] - (sRe[i] - lo * a);
+    const ri = resIm[i] - (sIm[i] - lo * b);
+    resRe[i] = rr;
+    resIm[i] = ri;
+    nRe[i] = c1 * a + c2 * rr;
+    nIm[i] = c1 * b + c2 * ri;
   }
 }

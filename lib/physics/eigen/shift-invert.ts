@@ -2,8 +2,13 @@
 // sparse LDL factorisation, Rayleigh-Ritz on H itself; plus an LDL preconditioner for LOBPCG scans.
 import { csrMatVecColumns } from '../csr';
 import { throwIfAborted } from '../errors';
+import { mulberry32 } from '../random';
 import { hermitianEigen } from './dense';
 import type { CsrMatrix, EigenOptions, EigenResult, Preconditioner, StateBlock } from '../types';
+import { asCols, columnNorm, copyColumn } from './block-ops';
+import { combineColumns } from './block-combine';
+import { projectCoefficients } from './block-project';
+import { subtractProjection } from './block-subtract';
 import { analyzeLdl, factorLdl, LdlPivotError, matchesPattern, solveLdl, type LdlFactor, type LdlSymbolic } from './ldl';
 import type { NestedDissectionOptions } from './ordering';
 
@@ -89,7 +94,7 @@ export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: Shi
   const factor = factorShifted(matrix, options);
   const complex = matrix.im !== null;
   const space = new SearchSpace(matrix, maxBasis, complex);
-  const rng = seededRandom(options.seed ?? 1);
+  const rng = mulberry32(((options.seed ?? 1) >>> 0) ^ 0x9e3779b9);
 
   // Start: warm vectors and seeded random ones, all smoothed by one inverse application. For a warm start from a
   // neighbouring configuration this matters: the old states have a large residual concentrated on the few links
@@ -128,7 +133,7 @@ export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: Shi
       if (best.residualNorms[j] / Math.max(1, Math.abs(best.values[j])) > tol) pending.push(j);
     }
     const residuals = emptyBlock(n, pending.length, complex);
-    for (let t = 0; t < pending.length; t++) copyColumn(best.residuals, pending[t], residuals, t);
+    for (let t = 0; t < pending.length; t++) copyColumn(n, asCols(best.residuals), pending[t], asCols(residuals), t);
     const corrections = emptyBlock(n, pending.length, complex);
     solveLdl(factor, residuals, corrections);
     const growth = depth * pending.length;
@@ -149,7 +154,7 @@ export function shiftInvertEigenpairs(matrix: CsrMatrix, k: number, options: Shi
   // Final residuals with H itself on the returned vectors.
   const vectors = sliceBlock(best.vectors, 0, k);
   const hv = emptyBlock(n, k, complex);
-  matVecColumns(matrix, vectors.re, vectors.im, hv.re, hv.im, k);
+  csrMatVecColumns(matrix, vectors.re, vectors.im, hv.re, hv.im, k);
   const values = best.values.slice(0, k);
   const residualNorms = new Float64Array(k);
   for (let j = 0; j < k; j++) residualNorms[j] = residualNorm(hv, vectors, j, values[j]);
@@ -287,7 +292,7 @@ class SearchSpace {
     // origin[t]: the column's norm on entry, in the units of its current scaling (for the drop test).
     const origin = new Float64Array(p);
     const norms = new Float64Array(p);
-    for (let t = 0; t < p; t++) origin[t] = norms[t] = Math.sqrt(columnNormSquared(wr, wi, n, t));
+    for (let t = 0; t < p; t++) origin[t] = norms[t] = columnNorm(n, { re: wr, im: wi, off: 0 }, t);
     let accepted = p;
     const cr = new Float64Array(Math.max(1, size * p));
     const ci = this.complex ? new Float64Array(Math.max(1, size * p)) : null;
@@ -299,7 +304,7 @@ class SearchSpace {
         subtractProjection(this.qre, this.qim, size, wr, wi, accepted, n, cr, ci);
         let again = false;
         for (let t = 0; t < accepted; t++) {
-          const after = Math.sqrt(columnNormSquared(wr, wi, n, t));
+          const after = columnNorm(n, { re: wr, im: wi, off: 0 }, t);
           if (after < Math.SQRT1_2 * norms[t] && after > DROP_TOLERANCE * origin[t]) again = true;
           norms[t] = after;
         }
@@ -311,14 +316,14 @@ class SearchSpace {
       for (let t = 0; t < accepted; t++) {
         const vr = wr.subarray(t * n, (t + 1) * n);
         const vi = wi ? wi.subarray(t * n, (t + 1) * n) : null;
-        const entry = Math.sqrt(columnNormSquared(vr, vi, n, 0));
+        const entry = columnNorm(n, { re: vr, im: vi, off: 0 }, 0);
         if (!(entry > DROP_TOLERANCE * origin[t]) || !Number.isFinite(entry)) continue;
         for (let pass = 0; pass < 2; pass++) {
           for (let s = 0; s < kept; s++) {
             removeComponent(wr.subarray(s * n, (s + 1) * n), wi ? wi.subarray(s * n, (s + 1) * n) : null, vr, vi, n);
           }
         }
-        const after = Math.sqrt(columnNormSquared(vr, vi, n, 0));
+        const after = columnNorm(n, { re: vr, im: vi, off: 0 }, 0);
         if (!(after > DROP_TOLERANCE * origin[t])) continue;
         // A column that lost much here may have regained components along the basis: one more round.
         if (after < Math.SQRT1_2 * entry && size > 0) clean = false;
@@ -340,7 +345,7 @@ class SearchSpace {
     // H on the new columns, then the new columns of G = Q^H H Q.
     const hr = new Float64Array(accepted * n);
     const hi = this.complex ? new Float64Array(accepted * n) : null;
-    matVecColumns(this.matrix, wr.subarray(0, accepted * n), wi ? wi.subarray(0, accepted * n) : null, hr, hi, accepted);
+    csrMatVecColumns(this.matrix, wr.subarray(0, accepted * n), wi ? wi.subarray(0, accepted * n) : null, hr, hi, accepted);
     const total = size + accepted;
     const gr = new Float64Array(total * accepted);
     const gi = this.complex ? new Float64Array(total * accepted) : null;
@@ -384,7 +389,7 @@ class SearchSpace {
     const hvectors = emptyBlock(n, want, this.complex);
     combineColumns(this.qre, this.qim, size, eig.vre, eig.vim, want, n, vectors);
     // H x by sparse products (5 entries a row) is cheaper than combining the stored H q columns.
-    matVecColumns(this.matrix, vectors.re, vectors.im, hvectors.re, hvectors.im, want);
+    csrMatVecColumns(this.matrix, vectors.re, vectors.im, hvectors.re, hvectors.im, want);
     const residuals = emptyBlock(n, want, this.complex);
     const residualNorms = new Float64Array(want);
     for (let j = 0; j < want; j++) {
@@ -421,775 +426,6 @@ class SearchSpace {
   }
 }
 
-// ---------------------------------------------------------------------------------------------------------
-// Dense block kernels on column-major blocks, in row chunks so that a chunk of every column stays in cache.
-
-/** Rows per chunk: 36 basis columns x 2048 rows x 8 bytes stay within a typical L2 cache (common practice). */
-const CHUNK = 2048;
-/**
- * Basis columns per block in the two-column kernels: 8 columns of a chunk (complex: 256 KB) stay in L2 while every
- * column pair of w passes over them; a multiple of 4 keeps the column grouping (and so the sums) of the plain loops.
- */
-const J_BLOCK = 8;
-
-/** C[j * p + t] = <q_j, w_t> = sum_i conj(q_j[i]) w_t[i] for j < m, t < p. */
-function projectCoefficients(
-  qr: Float64Array,
-  qi: Float64Array | null,
-  m: number,
-  wr: Float64Array,
-  wi: Float64Array | null,
-  p: number,
-  n: number,
-  cr: Float64Array,
-  ci: Float64Array | null,
-): void {
-  cr.fill(0, 0, m * p);
-  ci?.fill(0, 0, m * p);
-  for (let i0 = 0; i0 < n; i0 += CHUNK) {
-    const i1 = Math.min(n, i0 + CHUNK);
-    let t0 = 0;
-    if (qi && wi && ci) {
-      // Complex: two columns of w against two basis columns per pass (each load feeds twice the products).
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < p; t += 2) projectPairComplex(qr, qi, j0, j1, wr, wi, t, p, n, i0, i1, cr, ci);
-      }
-      t0 = p - (p % 2);
-    } else if (!qi && !wi) {
-      // Real: two columns of w per pass (the same sums as below, each basis load feeding both).
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < p; t += 2) projectPairReal(qr, j0, j1, wr, t, p, n, i0, i1, cr);
-      }
-      t0 = p - (p % 2);
-    }
-    for (let t = t0; t < p; t++) {
-      const wo = t * n;
-      let j = 0;
-      if (!qi || !wi || !ci) {
-        // Four basis columns per pass over w: one load of w[i] feeds four products.
-        for (; j + 3 < m; j += 4) {
-          const q0 = j * n;
-          const q1 = q0 + n;
-          const q2 = q1 + n;
-          const q3 = q2 + n;
-          let s0 = 0;
-          let s1 = 0;
-          let s2 = 0;
-          let s3 = 0;
-          for (let i = i0; i < i1; i++) {
-            const w = wr[wo + i];
-            s0 += qr[q0 + i] * w;
-            s1 += qr[q1 + i] * w;
-            s2 += qr[q2 + i] * w;
-            s3 += qr[q3 + i] * w;
-          }
-          cr[j * p + t] += s0;
-          cr[(j + 1) * p + t] += s1;
-          cr[(j + 2) * p + t] += s2;
-          cr[(j + 3) * p + t] += s3;
-        }
-        for (; j < m; j++) {
-          const qo = j * n;
-          let s0 = 0;
-          for (let i = i0; i < i1; i++) s0 += qr[qo + i] * wr[wo + i];
-          cr[j * p + t] += s0;
-        }
-        continue;
-      }
-      for (; j + 1 < m; j += 2) {
-        const q0 = j * n;
-        const q1 = q0 + n;
-        let s0r = 0;
-        let s0i = 0;
-        let s1r = 0;
-        let s1i = 0;
-        for (let i = i0; i < i1; i++) {
-          const br = wr[wo + i];
-          const bi = wi[wo + i];
-          const a0r = qr[q0 + i];
-          const a0i = qi[q0 + i];
-          const a1r = qr[q1 + i];
-          const a1i = qi[q1 + i];
-          s0r += a0r * br + a0i * bi;
-          s0i += a0r * bi - a0i * br;
-          s1r += a1r * br + a1i * bi;
-          s1i += a1r * bi - a1i * br;
-        }
-        cr[j * p + t] += s0r;
-        ci[j * p + t] += s0i;
-        cr[(j + 1) * p + t] += s1r;
-        ci[(j + 1) * p + t] += s1i;
-      }
-      for (; j < m; j++) {
-        const qo = j * n;
-        let sr = 0;
-        let si = 0;
-        for (let i = i0; i < i1; i++) {
-          const ar = qr[qo + i];
-          const ai = qi[qo + i];
-          const br = wr[wo + i];
-          const bi = wi[wo + i];
-          sr += ar * br + ai * bi;
-          si += ar * bi - ai * br;
-        }
-        cr[j * p + t] += sr;
-        ci[j * p + t] += si;
-      }
-    }
-  }
-}
-
-/** w_t -= sum_j q_j C[j * p + t]. */
-function subtractProjection(
-  qr: Float64Array,
-  qi: Float64Array | null,
-  m: number,
-  wr: Float64Array,
-  wi: Float64Array | null,
-  p: number,
-  n: number,
-  cr: Float64Array,
-  ci: Float64Array | null,
-): void {
-  for (let i0 = 0; i0 < n; i0 += CHUNK) {
-    const i1 = Math.min(n, i0 + CHUNK);
-    let t0 = 0;
-    if (qi && wi && ci) {
-      // Complex: two columns of w per pass over the basis chunk (each basis load feeds both).
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < p; t += 2) subtractPairComplex(qr, qi, j0, j1, wr, wi, t, p, n, i0, i1, cr, ci);
-      }
-      t0 = p - (p % 2);
-    } else if (!qi && !wi) {
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < p; t += 2) subtractPairReal(qr, j0, j1, wr, t, p, n, i0, i1, cr);
-      }
-      t0 = p - (p % 2);
-    }
-    for (let t = t0; t < p; t++) {
-      const wo = t * n;
-      let j = 0;
-      if (!qi || !wi || !ci) {
-        for (; j + 3 < m; j += 4) {
-          const q0 = j * n;
-          const q1 = q0 + n;
-          const q2 = q1 + n;
-          const q3 = q2 + n;
-          const a0 = cr[j * p + t];
-          const a1 = cr[(j + 1) * p + t];
-          const a2 = cr[(j + 2) * p + t];
-          const a3 = cr[(j + 3) * p + t];
-          for (let i = i0; i < i1; i++) {
-            wr[wo + i] -= a0 * qr[q0 + i] + a1 * qr[q1 + i] + a2 * qr[q2 + i] + a3 * qr[q3 + i];
-          }
-        }
-        for (; j < m; j++) {
-          const qo = j * n;
-          const a0 = cr[j * p + t];
-          for (let i = i0; i < i1; i++) wr[wo + i] -= a0 * qr[qo + i];
-        }
-        continue;
-      }
-      for (; j + 1 < m; j += 2) {
-        const q0 = j * n;
-        const q1 = q0 + n;
-        const a0r = cr[j * p + t];
-        const a0i = ci[j * p + t];
-        const a1r = cr[(j + 1) * p + t];
-        const a1i = ci[(j + 1) * p + t];
-        for (let i = i0; i < i1; i++) {
-          const b0r = qr[q0 + i];
-          const b0i = qi[q0 + i];
-          const b1r = qr[q1 + i];
-          const b1i = qi[q1 + i];
-          wr[wo + i] -= a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
-          wi[wo + i] -= a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
-        }
-      }
-      for (; j < m; j++) {
-        const qo = j * n;
-        const ar = cr[j * p + t];
-        const ai = ci[j * p + t];
-        for (let i = i0; i < i1; i++) {
-          const br = qr[qo + i];
-          const bi = qi[qo + i];
-          wr[wo + i] -= ar * br - ai * bi;
-          wi[wo + i] -= ar * bi + ai * br;
-        }
-      }
-    }
-  }
-}
-
-/** Complex columns t0 and t0 + 1 of projectCoefficients on rows [i0, i1): the same sums in the same order. */
-function projectPairComplex(
-  qr: Float64Array,
-  qi: Float64Array,
-  j0: number,
-  j1: number,
-  wr: Float64Array,
-  wi: Float64Array,
-  t0: number,
-  p: number,
-  n: number,
-  i0: number,
-  i1: number,
-  cr: Float64Array,
-  ci: Float64Array,
-): void {
-  const wa = t0 * n;
-  const wb = wa + n;
-  let j = j0;
-  for (; j + 1 < j1; j += 2) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    let a0r = 0;
-    let a0i = 0;
-    let a1r = 0;
-    let a1i = 0;
-    let b0r = 0;
-    let b0i = 0;
-    let b1r = 0;
-    let b1i = 0;
-    for (let i = i0; i < i1; i++) {
-      const x0r = qr[q0 + i];
-      const x0i = qi[q0 + i];
-      const x1r = qr[q1 + i];
-      const x1i = qi[q1 + i];
-      const ur = wr[wa + i];
-      const ui = wi[wa + i];
-      a0r += x0r * ur + x0i * ui;
-      a0i += x0r * ui - x0i * ur;
-      a1r += x1r * ur + x1i * ui;
-      a1i += x1r * ui - x1i * ur;
-      const vr = wr[wb + i];
-      const vi = wi[wb + i];
-      b0r += x0r * vr + x0i * vi;
-      b0i += x0r * vi - x0i * vr;
-      b1r += x1r * vr + x1i * vi;
-      b1i += x1r * vi - x1i * vr;
-    }
-    cr[j * p + t0] += a0r;
-    ci[j * p + t0] += a0i;
-    cr[(j + 1) * p + t0] += a1r;
-    ci[(j + 1) * p + t0] += a1i;
-    cr[j * p + t0 + 1] += b0r;
-    ci[j * p + t0 + 1] += b0i;
-    cr[(j + 1) * p + t0 + 1] += b1r;
-    ci[(j + 1) * p + t0 + 1] += b1i;
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    let ar = 0;
-    let ai = 0;
-    let br = 0;
-    let bi = 0;
-    for (let i = i0; i < i1; i++) {
-      const xr = qr[qo + i];
-      const xi = qi[qo + i];
-      const ur = wr[wa + i];
-      const ui = wi[wa + i];
-      const vr = wr[wb + i];
-      const vi = wi[wb + i];
-      ar += xr * ur + xi * ui;
-      ai += xr * ui - xi * ur;
-      br += xr * vr + xi * vi;
-      bi += xr * vi - xi * vr;
-    }
-    cr[j * p + t0] += ar;
-    ci[j * p + t0] += ai;
-    cr[j * p + t0 + 1] += br;
-    ci[j * p + t0 + 1] += bi;
-  }
-}
-
-/** Complex columns t0 and t0 + 1 of subtractProjection on rows [i0, i1): the same updates in the same order. */
-function subtractPairComplex(
-  qr: Float64Array,
-  qi: Float64Array,
-  j0: number,
-  j1: number,
-  wr: Float64Array,
-  wi: Float64Array,
-  t0: number,
-  p: number,
-  n: number,
-  i0: number,
-  i1: number,
-  cr: Float64Array,
-  ci: Float64Array,
-): void {
-  const wa = t0 * n;
-  const wb = wa + n;
-  let j = j0;
-  for (; j + 1 < j1; j += 2) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    const a0r = cr[j * p + t0];
-    const a0i = ci[j * p + t0];
-    const a1r = cr[(j + 1) * p + t0];
-    const a1i = ci[(j + 1) * p + t0];
-    const c0r = cr[j * p + t0 + 1];
-    const c0i = ci[j * p + t0 + 1];
-    const c1r = cr[(j + 1) * p + t0 + 1];
-    const c1i = ci[(j + 1) * p + t0 + 1];
-    for (let i = i0; i < i1; i++) {
-      const b0r = qr[q0 + i];
-      const b0i = qi[q0 + i];
-      const b1r = qr[q1 + i];
-      const b1i = qi[q1 + i];
-      wr[wa + i] -= a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
-      wi[wa + i] -= a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
-      wr[wb + i] -= c0r * b0r - c0i * b0i + c1r * b1r - c1i * b1i;
-      wi[wb + i] -= c0r * b0i + c0i * b0r + c1r * b1i + c1i * b1r;
-    }
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    const ar = cr[j * p + t0];
-    const ai = ci[j * p + t0];
-    const cr1 = cr[j * p + t0 + 1];
-    const ci1 = ci[j * p + t0 + 1];
-    for (let i = i0; i < i1; i++) {
-      const br = qr[qo + i];
-      const bi = qi[qo + i];
-      wr[wa + i] -= ar * br - ai * bi;
-      wi[wa + i] -= ar * bi + ai * br;
-      wr[wb + i] -= cr1 * br - ci1 * bi;
-      wi[wb + i] -= cr1 * bi + ci1 * br;
-    }
-  }
-}
-
-/** x_t = sum_j q_j Y[t * m + j] for t < want (complex when Q or Y is). */
-function combineColumns(
-  qr: Float64Array,
-  qi: Float64Array | null,
-  m: number,
-  yr: Float64Array,
-  yi: Float64Array | null,
-  want: number,
-  n: number,
-  out: StateBlock,
-): void {
-  const xr = out.re;
-  const xi = out.im;
-  xr.fill(0, 0, want * n);
-  xi?.fill(0, 0, want * n);
-  for (let i0 = 0; i0 < n; i0 += CHUNK) {
-    const i1 = Math.min(n, i0 + CHUNK);
-    let t0 = 0;
-    if (qi && xi && yi) {
-      // Complex: two output columns per pass over the basis chunk (each basis load feeds both).
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < want; t += 2) combinePairComplex(qr, qi, j0, j1, m, yr, yi, t, n, i0, i1, xr, xi);
-      }
-      t0 = want - (want % 2);
-    } else if (!qi || !xi) {
-      for (let j0 = 0; j0 < m; j0 += J_BLOCK) {
-        const j1 = Math.min(m, j0 + J_BLOCK);
-        for (let t = 0; t + 1 < want; t += 2) combinePairReal(qr, j0, j1, m, yr, t, n, i0, i1, xr);
-      }
-      t0 = want - (want % 2);
-    }
-    for (let t = t0; t < want; t++) {
-      const xo = t * n;
-      let j = 0;
-      if (!qi || !xi) {
-        for (; j + 3 < m; j += 4) {
-          const q0 = j * n;
-          const q1 = q0 + n;
-          const q2 = q1 + n;
-          const q3 = q2 + n;
-          const a0 = yr[t * m + j];
-          const a1 = yr[t * m + j + 1];
-          const a2 = yr[t * m + j + 2];
-          const a3 = yr[t * m + j + 3];
-          for (let i = i0; i < i1; i++) {
-            xr[xo + i] += a0 * qr[q0 + i] + a1 * qr[q1 + i] + a2 * qr[q2 + i] + a3 * qr[q3 + i];
-          }
-        }
-        for (; j < m; j++) {
-          const qo = j * n;
-          const a0 = yr[t * m + j];
-          for (let i = i0; i < i1; i++) xr[xo + i] += a0 * qr[qo + i];
-        }
-        continue;
-      }
-      for (; j + 1 < m; j += 2) {
-        const q0 = j * n;
-        const q1 = q0 + n;
-        const a0r = yr[t * m + j];
-        const a0i = yi ? yi[t * m + j] : 0;
-        const a1r = yr[t * m + j + 1];
-        const a1i = yi ? yi[t * m + j + 1] : 0;
-        for (let i = i0; i < i1; i++) {
-          const b0r = qr[q0 + i];
-          const b0i = qi[q0 + i];
-          const b1r = qr[q1 + i];
-          const b1i = qi[q1 + i];
-          xr[xo + i] += a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
-          xi[xo + i] += a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
-        }
-      }
-      for (; j < m; j++) {
-        const qo = j * n;
-        const ar = yr[t * m + j];
-        const ai = yi ? yi[t * m + j] : 0;
-        for (let i = i0; i < i1; i++) {
-          const br = qr[qo + i];
-          const bi = qi[qo + i];
-          xr[xo + i] += ar * br - ai * bi;
-          xi[xo + i] += ar * bi + ai * br;
-        }
-      }
-    }
-  }
-}
-
-/** Complex columns t0 and t0 + 1 of combineColumns on rows [i0, i1): the same updates in the same order. */
-function combinePairComplex(
-  qr: Float64Array,
-  qi: Float64Array,
-  j0: number,
-  j1: number,
-  m: number,
-  yr: Float64Array,
-  yi: Float64Array,
-  t0: number,
-  n: number,
-  i0: number,
-  i1: number,
-  xr: Float64Array,
-  xi: Float64Array,
-): void {
-  const xa = t0 * n;
-  const xb = xa + n;
-  const ya = t0 * m;
-  const yb = ya + m;
-  let j = j0;
-  for (; j + 1 < j1; j += 2) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    const a0r = yr[ya + j];
-    const a0i = yi[ya + j];
-    const a1r = yr[ya + j + 1];
-    const a1i = yi[ya + j + 1];
-    const c0r = yr[yb + j];
-    const c0i = yi[yb + j];
-    const c1r = yr[yb + j + 1];
-    const c1i = yi[yb + j + 1];
-    for (let i = i0; i < i1; i++) {
-      const b0r = qr[q0 + i];
-      const b0i = qi[q0 + i];
-      const b1r = qr[q1 + i];
-      const b1i = qi[q1 + i];
-      xr[xa + i] += a0r * b0r - a0i * b0i + a1r * b1r - a1i * b1i;
-      xi[xa + i] += a0r * b0i + a0i * b0r + a1r * b1i + a1i * b1r;
-      xr[xb + i] += c0r * b0r - c0i * b0i + c1r * b1r - c1i * b1i;
-      xi[xb + i] += c0r * b0i + c0i * b0r + c1r * b1i + c1i * b1r;
-    }
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    const ar = yr[ya + j];
-    const ai = yi[ya + j];
-    const cr = yr[yb + j];
-    const ci = yi[yb + j];
-    for (let i = i0; i < i1; i++) {
-      const br = qr[qo + i];
-      const bi = qi[qo + i];
-      xr[xa + i] += ar * br - ai * bi;
-      xi[xa + i] += ar * bi + ai * br;
-      xr[xb + i] += cr * br - ci * bi;
-      xi[xb + i] += cr * bi + ci * br;
-    }
-  }
-}
-
-/** Real columns t0 and t0 + 1 of projectCoefficients on rows [i0, i1): the same sums in the same order. */
-function projectPairReal(
-  qr: Float64Array,
-  j0: number,
-  j1: number,
-  wr: Float64Array,
-  t0: number,
-  p: number,
-  n: number,
-  i0: number,
-  i1: number,
-  cr: Float64Array,
-): void {
-  const wa = t0 * n;
-  const wb = wa + n;
-  let j = j0;
-  for (; j + 3 < j1; j += 4) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    const q2 = q1 + n;
-    const q3 = q2 + n;
-    let a0 = 0;
-    let a1 = 0;
-    let a2 = 0;
-    let a3 = 0;
-    let b0 = 0;
-    let b1 = 0;
-    let b2 = 0;
-    let b3 = 0;
-    for (let i = i0; i < i1; i++) {
-      const u = wr[wa + i];
-      const v = wr[wb + i];
-      const x0 = qr[q0 + i];
-      const x1 = qr[q1 + i];
-      const x2 = qr[q2 + i];
-      const x3 = qr[q3 + i];
-      a0 += x0 * u;
-      a1 += x1 * u;
-      a2 += x2 * u;
-      a3 += x3 * u;
-      b0 += x0 * v;
-      b1 += x1 * v;
-      b2 += x2 * v;
-      b3 += x3 * v;
-    }
-    cr[j * p + t0] += a0;
-    cr[(j + 1) * p + t0] += a1;
-    cr[(j + 2) * p + t0] += a2;
-    cr[(j + 3) * p + t0] += a3;
-    cr[j * p + t0 + 1] += b0;
-    cr[(j + 1) * p + t0 + 1] += b1;
-    cr[(j + 2) * p + t0 + 1] += b2;
-    cr[(j + 3) * p + t0 + 1] += b3;
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    let a0 = 0;
-    let b0 = 0;
-    for (let i = i0; i < i1; i++) {
-      a0 += qr[qo + i] * wr[wa + i];
-      b0 += qr[qo + i] * wr[wb + i];
-    }
-    cr[j * p + t0] += a0;
-    cr[j * p + t0 + 1] += b0;
-  }
-}
-
-/** Real columns t0 and t0 + 1 of subtractProjection on rows [i0, i1): the same updates in the same order. */
-function subtractPairReal(
-  qr: Float64Array,
-  j0: number,
-  j1: number,
-  wr: Float64Array,
-  t0: number,
-  p: number,
-  n: number,
-  i0: number,
-  i1: number,
-  cr: Float64Array,
-): void {
-  const wa = t0 * n;
-  const wb = wa + n;
-  let j = j0;
-  for (; j + 3 < j1; j += 4) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    const q2 = q1 + n;
-    const q3 = q2 + n;
-    const a0 = cr[j * p + t0];
-    const a1 = cr[(j + 1) * p + t0];
-    const a2 = cr[(j + 2) * p + t0];
-    const a3 = cr[(j + 3) * p + t0];
-    const b0 = cr[j * p + t0 + 1];
-    const b1 = cr[(j + 1) * p + t0 + 1];
-    const b2 = cr[(j + 2) * p + t0 + 1];
-    const b3 = cr[(j + 3) * p + t0 + 1];
-    for (let i = i0; i < i1; i++) {
-      const x0 = qr[q0 + i];
-      const x1 = qr[q1 + i];
-      const x2 = qr[q2 + i];
-      const x3 = qr[q3 + i];
-      wr[wa + i] -= a0 * x0 + a1 * x1 + a2 * x2 + a3 * x3;
-      wr[wb + i] -= b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3;
-    }
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    const a0 = cr[j * p + t0];
-    const b0 = cr[j * p + t0 + 1];
-    for (let i = i0; i < i1; i++) {
-      wr[wa + i] -= a0 * qr[qo + i];
-      wr[wb + i] -= b0 * qr[qo + i];
-    }
-  }
-}
-
-/** Real columns t0 and t0 + 1 of combineColumns on rows [i0, i1): the same updates in the same order. */
-function combinePairReal(
-  qr: Float64Array,
-  j0: number,
-  j1: number,
-  m: number,
-  yr: Float64Array,
-  t0: number,
-  n: number,
-  i0: number,
-  i1: number,
-  xr: Float64Array,
-): void {
-  const xa = t0 * n;
-  const xb = xa + n;
-  const ya = t0 * m;
-  const yb = ya + m;
-  let j = j0;
-  for (; j + 3 < j1; j += 4) {
-    const q0 = j * n;
-    const q1 = q0 + n;
-    const q2 = q1 + n;
-    const q3 = q2 + n;
-    const a0 = yr[ya + j];
-    const a1 = yr[ya + j + 1];
-    const a2 = yr[ya + j + 2];
-    const a3 = yr[ya + j + 3];
-    const b0 = yr[yb + j];
-    const b1 = yr[yb + j + 1];
-    const b2 = yr[yb + j + 2];
-    const b3 = yr[yb + j + 3];
-    for (let i = i0; i < i1; i++) {
-      const x0 = qr[q0 + i];
-      const x1 = qr[q1 + i];
-      const x2 = qr[q2 + i];
-      const x3 = qr[q3 + i];
-      xr[xa + i] += a0 * x0 + a1 * x1 + a2 * x2 + a3 * x3;
-      xr[xb + i] += b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3;
-    }
-  }
-  for (; j < j1; j++) {
-    const qo = j * n;
-    const a0 = yr[ya + j];
-    const b0 = yr[yb + j];
-    for (let i = i0; i < i1; i++) {
-      xr[xa + i] += a0 * qr[qo + i];
-      xr[xb + i] += b0 * qr[qo + i];
-    }
-  }
-}
-
-/** Columns per pass of matVecColumns (k + guard = 5 for the usual k = 4). */
-const MATVEC_GROUP = 5;
-
-/**
- * Y = A X for k columns, as csrMatVecColumns (same sums in the same order, so the same bits), but five columns per
- * pass over a row so that each stored entry of A is loaded once for all of them (about twice as fast at h = 1/160).
- */
-function matVecColumns(
-  A: CsrMatrix,
-  xr: Float64Array,
-  xi: Float64Array | null,
-  yr: Float64Array,
-  yi: Float64Array | null,
-  k: number,
-): void {
-  const { n, rowPtr, colIdx, re, im } = A;
-  const complex = im !== null && xi !== null && yi !== null;
-  const real = im === null && xi === null && yi === null;
-  let c0 = 0;
-  if (complex || real) {
-    for (; c0 + MATVEC_GROUP <= k; c0 += MATVEC_GROUP) {
-      const o0 = c0 * n;
-      const o1 = o0 + n;
-      const o2 = o1 + n;
-      const o3 = o2 + n;
-      const o4 = o3 + n;
-      if (real) {
-        for (let r = 0; r < n; r++) {
-          let s0 = 0;
-          let s1 = 0;
-          let s2 = 0;
-          let s3 = 0;
-          let s4 = 0;
-          for (let p = rowPtr[r], end = rowPtr[r + 1]; p < end; p++) {
-            const q = colIdx[p];
-            const a = re[p];
-            s0 += a * xr[o0 + q];
-            s1 += a * xr[o1 + q];
-            s2 += a * xr[o2 + q];
-            s3 += a * xr[o3 + q];
-            s4 += a * xr[o4 + q];
-          }
-          yr[o0 + r] = s0;
-          yr[o1 + r] = s1;
-          yr[o2 + r] = s2;
-          yr[o3 + r] = s3;
-          yr[o4 + r] = s4;
-        }
-        continue;
-      }
-      const ai = im!;
-      const vi = xi!;
-      const wi = yi!;
-      for (let r = 0; r < n; r++) {
-        let s0r = 0;
-        let s0i = 0;
-        let s1r = 0;
-        let s1i = 0;
-        let s2r = 0;
-        let s2i = 0;
-        let s3r = 0;
-        let s3i = 0;
-        let s4r = 0;
-        let s4i = 0;
-        for (let p = rowPtr[r], end = rowPtr[r + 1]; p < end; p++) {
-          const q = colIdx[p];
-          const ar = re[p];
-          const aim = ai[p];
-          let br = xr[o0 + q];
-          let bi = vi[o0 + q];
-          s0r += ar * br - aim * bi;
-          s0i += ar * bi + aim * br;
-          br = xr[o1 + q];
-          bi = vi[o1 + q];
-          s1r += ar * br - aim * bi;
-          s1i += ar * bi + aim * br;
-          br = xr[o2 + q];
-          bi = vi[o2 + q];
-          s2r += ar * br - aim * bi;
-          s2i += ar * bi + aim * br;
-          br = xr[o3 + q];
-          bi = vi[o3 + q];
-          s3r += ar * br - aim * bi;
-          s3i += ar * bi + aim * br;
-          br = xr[o4 + q];
-          bi = vi[o4 + q];
-          s4r += ar * br - aim * bi;
-          s4i += ar * bi + aim * br;
-        }
-        yr[o0 + r] = s0r;
-        wi[o0 + r] = s0i;
-        yr[o1 + r] = s1r;
-        wi[o1 + r] = s1i;
-        yr[o2 + r] = s2r;
-        wi[o2 + r] = s2i;
-        yr[o3 + r] = s3r;
-        wi[o3 + r] = s3i;
-        yr[o4 + r] = s4r;
-        wi[o4 + r] = s4i;
-      }
-    }
-  }
-  if (c0 < k) {
-    const from = c0 * n;
-    const to = k * n;
-    const vi = xi ? xi.subarray(from, to) : null;
-    const wi = yi ? yi.subarray(from, to) : null;
-    csrMatVecColumns(A, xr.subarray(from, to), vi, yr.subarray(from, to), wi, k - c0);
-  }
-}
-
 /** v -= <u, v> u for a unit vector u. */
 function removeComponent(ur: Float64Array, ui: Float64Array | null, vr: Float64Array, vi: Float64Array | null, n: number): void {
   let cr = 0;
@@ -1207,13 +443,6 @@ function removeComponent(ur: Float64Array, ui: Float64Array | null, vr: Float64A
     return;
   }
   for (let i = 0; i < n; i++) vr[i] -= cr * ur[i];
-}
-
-function columnNormSquared(vr: Float64Array, vi: Float64Array | null, n: number, t: number): number {
-  let s = 0;
-  for (let i = t * n; i < (t + 1) * n; i++) s += vr[i] * vr[i];
-  if (vi) for (let i = t * n; i < (t + 1) * n; i++) s += vi[i] * vi[i];
-  return s;
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -1258,15 +487,6 @@ function sliceBlock(block: StateBlock, from: number, count: number): StateBlock 
   };
 }
 
-function copyColumn(src: StateBlock, from: number, dst: StateBlock, to: number): void {
-  const { n } = src;
-  dst.re.set(src.re.subarray(from * n, (from + 1) * n), to * n);
-  if (dst.im) {
-    if (src.im) dst.im.set(src.im.subarray(from * n, (from + 1) * n), to * n);
-    else dst.im.fill(0, to * n, (to + 1) * n);
-  }
-}
-
 /** Warm-start columns first (real part, or imaginary part when larger, for a real problem), then seeded random. */
 function startBlock(
   n: number,
@@ -1301,11 +521,6 @@ function dotSelf(vr: Float64Array, vi: Float64Array | null): number {
   return s;
 }
 
-function scale(vr: Float64Array, vi: Float64Array | null, factor: number): void {
-  for (let i = 0; i < vr.length; i++) vr[i] *= factor;
-  if (vi) for (let i = 0; i < vi.length; i++) vi[i] *= factor;
-}
-
 function residualNorm(hv: StateBlock, v: StateBlock, j: number, lambda: number): number {
   const { n } = v;
   let s = 0;
@@ -1326,16 +541,4 @@ function maxRelative(norms: Float64Array, values: Float64Array, k: number): numb
   let worst = 0;
   for (let j = 0; j < Math.min(k, norms.length); j++) worst = Math.max(worst, norms[j] / Math.max(1, Math.abs(values[j])));
   return worst;
-}
-
-/** Deterministic uniform numbers in [0, 1) (mulberry32; common practice for seeded test data). */
-function seededRandom(seed: number): () => number {
-  let state = (seed >>> 0) ^ 0x9e3779b9;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }

@@ -1,5 +1,6 @@
 // Shared plumbing of the sweep, loop, degeneracy, nodal-line and convergence tasks: problem set-up with a covered box,
 // throttled progress, wall-clock diagnostics, and the grid description every result reports.
+import { policyMethod, TASK_POLICY } from '../eigen/choose-method';
 import { AbortError } from '../errors';
 import { prepareProblem } from '../problem';
 import type { BaseProblemSpec } from '../schemas/common';
@@ -110,15 +111,11 @@ export function principalArg(re: number, im: number): number {
   return phase === -Math.PI ? Math.PI : phase;
 }
 
-/** At or below this many unknowns the dense solver is used for repeated solves (cheap at this size). */
-export const TASK_DENSE_MAX_UNKNOWNS = 64;
-
 /**
- * Eigensolver for the many nearby solves of sweeps, loops and scans: the caller's choice, else dense for tiny
- * lattices and shift-invert (sparse LDL) above; about 20x faster per solve than unpreconditioned LOBPCG on the
- * unit disk at h = 1/16 (measured while writing this module: 33 ms versus 0.6 s per warm-started solve).
+ * Eigensolver for the many nearby solves of sweeps, loops and scans: the caller's choice, else the one method policy
+ * (lib/physics/eigen/choose-method.ts) with the tasks' thresholds: dense for tiny lattices, shift-invert above.
  */
 export function taskMethod(ctx: ScanTuning, unknowns: number): EigenOptions['method'] {
   if (ctx.method) return ctx.method;
-  return unknowns <= TASK_DENSE_MAX_UNKNOWNS ? 'dense' : 'shift-invert';
+  return policyMethod(unknowns, 0, false, TASK_POLICY);
 }
