@@ -2,13 +2,7 @@
 // Kinds, and the parameter schema of each kind, come from the figure-kind registry; kind and parameters must agree.
 import { z } from 'zod';
 import { viewSpecSchema } from '@/lib/charts/view-spec';
-import {
-  figureKind,
-  figureKindSchema,
-  isFigureKind,
-  type FigureKind,
-  type FigureParams,
-} from '@/lib/figure-kinds/registry';
+import { figureKind, figureKindSchema, isFigureKind, type FigureKind, type FigureParams } from '@/lib/figure-kinds/registry';
 import { taskSpecSchema, zodIssuesToSpecIssues } from '@/lib/physics/schemas';
 import { isTaskName } from '@/lib/physics/task-table';
 
