@@ -15,6 +15,8 @@ import {
   uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
+import type { FigureKind, FigureParams } from '@/lib/figure-kinds/registry';
+import type { TaskSpec } from '@/lib/physics/schemas';
 
 // ---------------------------------------------------------------------------------------------
 // Enums
@@ -158,17 +160,17 @@ export const noteRevisions = pgTable(
 // Figures, runs, cached results and snapshots
 // ---------------------------------------------------------------------------------------------
 
-/** A figure of a manuscript. `kind` is a solver task name (or 'upload'); `params` is the validated solver spec. */
+/** A figure of a manuscript. `kind` is a kind of the figure-kind registry; `params` are valid for that kind's schema. */
 export const figures = pgTable(
   'figures',
   {
     id: uuid('id').primaryKey().defaultRandom(),
     manuscriptId: uuid('manuscript_id').notNull().references(() => manuscripts.id, { onDelete: 'cascade' }),
     label: text('label').notNull(),
-    kind: text('kind').notNull(),
+    kind: text('kind').$type<FigureKind>().notNull(),
     title: text('title').notNull().default(''),
     caption: text('caption').notNull().default(''),
-    params: jsonb('params').notNull(),
+    params: jsonb('params').$type<FigureParams>().notNull(),
     viewSpec: jsonb('view_spec'),
     createdById: text('created_by_id').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -185,7 +187,7 @@ export const results = pgTable('results', {
   id: uuid('id').primaryKey().defaultRandom(),
   inputHash: text('input_hash').notNull().unique(),
   solverVersion: text('solver_version').notNull(),
-  params: jsonb('params').notNull(),
+  params: jsonb('params').$type<TaskSpec>().notNull(),
   data: jsonb('data').notNull(),
   diagnostics: jsonb('diagnostics').notNull(),
   resultHash: text('result_hash').notNull(),
@@ -197,7 +199,7 @@ export const runs = pgTable(
   {
     id: uuid('id').primaryKey().defaultRandom(),
     figureId: uuid('figure_id').notNull().references(() => figures.id, { onDelete: 'cascade' }),
-    params: jsonb('params').notNull(),
+    params: jsonb('params').$type<TaskSpec>().notNull(),
     inputHash: text('input_hash').notNull(),
     solverVersion: text('solver_version').notNull(),
     status: runStatus('status').notNull().default('queued'),
@@ -223,10 +225,10 @@ export const snapshots = pgTable(
     figureId: uuid('figure_id').notNull().references(() => figures.id, { onDelete: 'restrict' }),
     manuscriptId: uuid('manuscript_id').notNull().references(() => manuscripts.id, { onDelete: 'restrict' }),
     version: integer('version').notNull(),
-    kind: text('kind').notNull(),
+    kind: text('kind').$type<FigureKind>().notNull(),
     label: text('label').notNull(),
     caption: text('caption').notNull(),
-    params: jsonb('params').notNull(),
+    params: jsonb('params').$type<FigureParams>().notNull(),
     viewSpec: jsonb('view_spec'),
     solverVersion: text('solver_version').notNull(),
     gitCommit: text('git_commit'),

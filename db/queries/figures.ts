@@ -75,7 +75,7 @@ export async function createFigure({
   }
 }
 
-/** Apply a validated patch; new params also set the kind to their task. 409 on a duplicate label. */
+/** Apply a validated patch; new params come with their kind (the schema sets it). 409 on a duplicate label. */
 export async function updateFigure({ id, patch, database = db }: { id: string; patch: UpdateFigure; database?: Db }): Promise<Figure | null> {
   const values: Partial<typeof figures.$inferInsert> = { updatedAt: new Date() };
   if (patch.label !== undefined) values.label = patch.label;
@@ -84,7 +84,7 @@ export async function updateFigure({ id, patch, database = db }: { id: string; p
   if (patch.viewSpec !== undefined) values.viewSpec = patch.viewSpec;
   if (patch.params !== undefined) {
     values.params = patch.params;
-    values.kind = patch.params.task;
+    values.kind = patch.kind;
   }
   try {
     const [row] = await database.update(figures).set(values).where(eq(figures.id, id)).returning();

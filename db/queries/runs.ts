@@ -86,7 +86,7 @@ export async function updateRunProgress({
 export interface ResultToStore {
   inputHash: string;
   solverVersion: string;
-  params: unknown;
+  params: Result['params'];
   data: unknown;
   diagnostics: unknown;
   resultHash: string;

@@ -1,43 +1,17 @@
 // Chart specs for every figure kind: `defaultViewSpec` builds the default Vega-Lite spec of a result (data inline, so the
 // same spec renders in the browser and on the server) and `chartSpecFor` merges a figure's stored view spec over it.
-import { z } from 'zod';
+import { CHART_VIEWS, FIGURE_KINDS, figureKind, isFigureKind } from '@/lib/figure-kinds/registry';
 import { type DisplayUnits } from '@/lib/units';
 import type { ChartOptions, ChartSpec } from './common';
-import { convergenceSpec } from './convergence';
-import { densitySpec } from './density';
-import { gapMapSpec } from './gap-map';
-import { holonomySpec } from './holonomy';
-import { nodalLinesSpec } from './nodal-lines';
-import { positionSweepSpec } from './position-sweep';
-import { isRecord } from './read-result';
-import { spectralFlowSpec } from './spectral-flow';
-import { spectrumSpec } from './spectrum';
-import { uploadedDataSpec } from './uploaded-data';
-import { mergeViewSpec, sanitizeViewSpec } from './view-spec';
+import { ChartDataError, isRecord } from './read-result';
+import { mergeViewSpec, viewSpecSchema } from './view-spec';
 
 export type { ChartOptions, ChartSpec } from './common';
 export { ChartDataError } from './read-result';
 export { editableViewSpec, mergeViewSpec, sanitizeViewSpec, viewSpecSchema } from './view-spec';
 
-/** Figure kinds: one per solver task, plus uploaded data. */
-export const FIGURE_KINDS = ['spectrum', 'flux-sweep', 'position-sweep', 'holonomy', 'degeneracy', 'nodal-lines', 'convergence', 'upload'] as const;
-export const figureKindSchema = z.enum(FIGURE_KINDS, { error: `kind must be one of ${FIGURE_KINDS.join(', ')}` });
-export type FigureKind = z.infer<typeof figureKindSchema>;
-
-/** Alternative views a kind offers (chosen with `view`, or `usermeta.view` in the stored view spec). */
-export const CHART_VIEWS: Record<FigureKind, readonly string[]> = {
-  spectrum: ['levels', 'density'],
-  'flux-sweep': ['spectral-flow'],
-  'position-sweep': ['levels', 'landscape'],
-  holonomy: ['loop'],
-  degeneracy: ['gap-map'],
-  'nodal-lines': ['sign'],
-  convergence: ['levels'],
-  upload: ['lines'],
-};
-
 export interface DefaultViewOptions extends ChartOptions {
-  /** One of CHART_VIEWS[kind]; default the first. */
+  /** One of the kind's views (CHART_VIEWS in lib/figure-kinds/registry.ts); default the first. */
   view?: string;
   /** Level shown by single-level views (density, landscape). */
   level?: number;
@@ -46,36 +20,25 @@ export interface DefaultViewOptions extends ChartOptions {
 /**
  * The default Vega-Lite spec of a result.
  *
- * @param kind - the figure kind (a solver task name or 'upload')
+ * @param kind - the figure kind (lib/figure-kinds/registry.ts: a solver task name or 'uploaded-data')
  * @param result - the stored result data (without diagnostics is fine)
  * @param options - display units, size, the task spec (`params`) for walls, loops and exact levels, view and level
  * @throws ChartDataError when the result lacks what the chart needs (message names the field); RangeError for an unknown kind
  * @example defaultViewSpec('flux-sweep', result, { units: { system: 'dimensionless' }, params: spec })
  */
 export function defaultViewSpec(kind: string, result: unknown, options: DefaultViewOptions = {}): ChartSpec {
-  const parsedKind = figureKindSchema.safeParse(kind);
-  if (!parsedKind.success) throw new RangeError(`no chart for kind "${kind}": kind must be one of ${FIGURE_KINDS.join(', ')}`);
-  const views = CHART_VIEWS[parsedKind.data];
+  if (!isFigureKind(kind)) throw new RangeError(`no chart for kind "${kind}": kind must be one of ${FIGURE_KINDS.join(', ')}`);
+  const views = CHART_VIEWS[kind];
   const view = options.view ?? views[0];
   if (!views.includes(view)) throw new RangeError(`kind "${kind}" has no view "${view}"; its views are ${views.join(', ')}`);
-  switch (parsedKind.data) {
-    case 'spectrum':
-      return view === 'density' ? densitySpec(result, options) : spectrumSpec(result, options);
-    case 'flux-sweep':
-      return spectralFlowSpec(result, options);
-    case 'position-sweep':
-      return positionSweepSpec(result, options);
-    case 'holonomy':
-      return holonomySpec(result, options);
-    case 'degeneracy':
-      return gapMapSpec(result, options);
-    case 'nodal-lines':
-      return nodalLinesSpec(result, options);
-    case 'convergence':
-      return convergenceSpec(result, options);
-    case 'upload':
-      return uploadedDataSpec(result, options);
-  }
+  return figureKind(kind).chartSpec(result, { ...options, view });
+}
+
+/** A stored view spec through the same schema as at write time (validates and sanitises) before it is drawn. */
+function checkedViewSpec(viewSpec: unknown): Record<string, unknown> {
+  const parsed = viewSpecSchema.safeParse(viewSpec);
+  if (!parsed.success) throw new ChartDataError(`the figure's view spec cannot be used: ${parsed.error.issues.map((i) => i.message).join('; ')}`);
+  return parsed.data;
 }
 
 export interface ChartSpecForOptions extends Omit<DefaultViewOptions, 'units'> {
@@ -91,7 +54,7 @@ export interface ChartSpecForOptions extends Omit<DefaultViewOptions, 'units'> {
  */
 export function chartSpecFor(kind: string, result: unknown, options: ChartSpecForOptions): ChartSpec {
   const { viewSpec, ...rest } = options;
-  const clean = viewSpec === undefined || viewSpec === null ? undefined : (sanitizeViewSpec(viewSpec) as Record<string, unknown>);
+  const clean = viewSpec === undefined || viewSpec === null ? undefined : checkedViewSpec(viewSpec);
   const meta = clean && isRecord(clean.usermeta) ? clean.usermeta : {};
   const view = rest.view ?? (typeof meta.view === 'string' ? meta.view : undefined);
   const level = rest.level ?? (typeof meta.level === 'number' ? meta.level : undefined);

@@ -1,4 +1,4 @@
-// Chart of uploaded data (figures of kind 'upload'): a table of numeric columns drawn as lines of every column against the
+// Chart of uploaded data (figures of kind 'uploaded-data'): a table of numeric columns drawn as lines of every column against the
 // first one. Accepts { columns, rows } or an array of records; the first numeric column is the x axis.
 import { baseSpec, type ChartOptions, type ChartSpec, tidy } from './common';
 import { ChartDataError, isRecord } from './read-result';

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import type { SpecPart } from './common';
 
 /** Largest stored view spec, in characters of JSON (common practice: keep settings small; data never lives here). */
-export const MAX_VIEW_SPEC_CHARS = 65_536;
+export const MAX_VIEW_SPEC_CHARS = 100_000;
 
 /** Keys never taken from a stored view spec: they could load data, link out or replace the computed data. */
 const STRIPPED_KEYS = new Set(['url', 'href', 'datasets', '$schema']);
@@ -30,12 +30,13 @@ export function sanitizeViewSpec(value: unknown): unknown {
 }
 
 /**
- * The stored view spec of a figure: a JSON object (a partial Vega-Lite spec), at most 64 kB, without data URLs.
- * Shared by the figure form, the figure API and the seed.
+ * The one view-spec schema: a JSON object (a partial Vega-Lite spec) of at most MAX_VIEW_SPEC_CHARS characters, returned
+ * sanitised (no URLs, links or data other than inline values). Used when a figure is written (API, forms, seed) and again
+ * by chartSpecFor before a stored spec is drawn.
  */
 export const viewSpecSchema = z
-  .record(z.string(), z.unknown(), { error: 'the view spec must be a JSON object (a partial Vega-Lite spec)' })
-  .refine((v) => JSON.stringify(v).length <= MAX_VIEW_SPEC_CHARS, { error: `the view spec must be at most ${MAX_VIEW_SPEC_CHARS} characters of JSON` })
+  .record(z.string(), z.unknown(), { error: 'The view spec must be a JSON object (a partial Vega-Lite spec)' })
+  .refine((v) => JSON.stringify(v).length <= MAX_VIEW_SPEC_CHARS, { error: `The view spec must be at most ${MAX_VIEW_SPEC_CHARS} characters of JSON` })
   .transform((v) => sanitizeViewSpec(v) as Record<string, unknown>);
 
 export type ViewSpec = z.infer<typeof viewSpecSchema>;

@@ -1,30 +1,35 @@
 // runTask: one entry point for every solver task, dispatching on `task` (CLI, job worker and tests call this).
-// Each task is `(spec, ctx) => Promise<result>`; results are plain JSON-ready objects with a `diagnostics` field.
+// The runners table is typed by the task table (task-table.ts), so every task has exactly one runner.
 import type { TaskSpec } from './schemas';
-import { runConvergence, type ConvergenceResult } from './tasks/convergence';
-import { runDegeneracy, type DegeneracyResult } from './tasks/degeneracy';
-import { runFluxSweep, type FluxSweepResult } from './tasks/flux-sweep';
-import { runHolonomy, type HolonomyResult } from './tasks/holonomy';
-import { runNodalLines, type NodalLinesResult } from './tasks/nodal-lines';
-import { runPositionSweep, type PositionSweepResult } from './tasks/position-sweep';
-import { runSpectrum, type SpectrumResult } from './tasks/spectrum';
+import { isTaskName, TASK_NAMES, type TaskName, type TaskSpecOf } from './task-table';
+import { runConvergence } from './tasks/convergence';
+import { runDegeneracy } from './tasks/degeneracy';
+import { runFluxSweep } from './tasks/flux-sweep';
+import { runHolonomy } from './tasks/holonomy';
+import { runNodalLines } from './tasks/nodal-lines';
+import { runPositionSweep } from './tasks/position-sweep';
+import { runSpectrum } from './tasks/spectrum';
 import type { TaskRunContext } from './tasks/task-support';
 
-/** Every task name, in the order the UI lists them. */
-export const TASK_NAMES = ['spectrum', 'flux-sweep', 'position-sweep', 'holonomy', 'degeneracy', 'nodal-lines', 'convergence'] as const;
-export type TaskName = (typeof TASK_NAMES)[number];
-
-export type TaskResult =
-  | SpectrumResult
-  | FluxSweepResult
-  | PositionSweepResult
-  | HolonomyResult
-  | DegeneracyResult
-  | NodalLinesResult
-  | ConvergenceResult;
+export { TASK_NAMES, type TaskName };
 
 /** Context of a task run: progress, cancellation, mask files, solver tuning. */
 export type RunTaskContext = TaskRunContext;
+
+/** Each task's runner: `(spec, ctx) => Promise<result>`; results are plain JSON-ready objects with `diagnostics`. */
+const TASK_RUNNERS = {
+  spectrum: runSpectrum,
+  'flux-sweep': runFluxSweep,
+  'position-sweep': runPositionSweep,
+  holonomy: runHolonomy,
+  degeneracy: runDegeneracy,
+  'nodal-lines': runNodalLines,
+  convergence: runConvergence,
+} satisfies { [T in TaskName]: (spec: TaskSpecOf<T>, ctx: RunTaskContext) => Promise<{ diagnostics: unknown }> };
+
+/** The result of one task. */
+export type TaskResultOf<T extends TaskName> = Awaited<ReturnType<(typeof TASK_RUNNERS)[T]>>;
+export type TaskResult = TaskResultOf<TaskName>;
 
 /**
  * Runs a validated task spec.
@@ -37,24 +42,9 @@ export type RunTaskContext = TaskRunContext;
  * const result = await runTask(parseTaskSpec(json), { onProgress: (f) => console.error(f) });
  */
 export async function runTask(spec: TaskSpec, ctx: RunTaskContext = {}): Promise<TaskResult> {
-  switch (spec.task) {
-    case 'spectrum':
-      return runSpectrum(spec, ctx);
-    case 'flux-sweep':
-      return runFluxSweep(spec, ctx);
-    case 'position-sweep':
-      return runPositionSweep(spec, ctx);
-    case 'holonomy':
-      return runHolonomy(spec, ctx);
-    case 'degeneracy':
-      return runDegeneracy(spec, ctx);
-    case 'nodal-lines':
-      return runNodalLines(spec, ctx);
-    case 'convergence':
-      return runConvergence(spec, ctx);
-    default: {
-      const never: never = spec;
-      throw new Error(`unknown task ${JSON.stringify((never as { task?: unknown }).task)}`);
-    }
-  }
+  const task: unknown = (spec as { task?: unknown }).task;
+  if (!isTaskName(task)) throw new Error(`unknown task ${JSON.stringify(task)}`);
+  // The spec's `task` picked the runner, so the spec is that runner's spec; TypeScript cannot correlate the two.
+  const run = TASK_RUNNERS[task] as (spec: TaskSpec, ctx: RunTaskContext) => Promise<TaskResult>;
+  return run(spec, ctx);
 }

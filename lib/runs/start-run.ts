@@ -6,6 +6,7 @@ import { getResultByInputHash } from '@/db/queries/results';
 import { failRun, insertRun, setRunJobId } from '@/db/queries/runs';
 import type { Figure, Run } from '@/db/schema';
 import { HttpError } from '@/lib/http/errors';
+import { figureKind, isFigureKind } from '@/lib/figure-kinds/registry';
 import { enqueueRun } from '@/lib/jobs/queue';
 import { SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/schemas';
@@ -31,6 +32,7 @@ export interface StartedRun {
 /**
  * Start a run of `figure` with its current parameters.
  *
+ * - A figure whose kind has no solver task (uploaded data) is refused with a 409: there is nothing to compute.
  * - Parameters are validated by the solver's schema (the same as the CLI and the forms); invalid ones throw a
  *   400 HttpError with per-field messages and nothing is written.
  * - Cache: when a result exists for the same input hash (parameters + solver version), the run is created already
@@ -46,12 +48,16 @@ export async function startRun({
   database = defaultDb,
   enqueue = enqueueRun,
 }: {
-  figure: Pick<Figure, 'id' | 'params'>;
+  /** The figure; its stored `params` are validated again here, so they are taken as they come. */
+  figure: Pick<Figure, 'id' | 'kind'> & { params: unknown };
   user: { id: string } | null;
   database?: Db;
   /** How to queue the run (the seed computes in-process and passes a no-op). */
   enqueue?: ((runId: string) => Promise<string | null>) | null;
 }): Promise<StartedRun> {
+  if (isFigureKind(figure.kind) && figureKind(figure.kind).task === null) {
+    throw new HttpError(409, `Figures of kind "${figure.kind}" are not computed: their data is uploaded, so there is nothing to run`);
+  }
   let spec;
   try {
     spec = parseTaskSpec(figure.params);

@@ -50,14 +50,13 @@ export async function freezeRun({
         .select({ next: sql<number>`coalesce(max(${snapshots.version}), 0)::int + 1` })
         .from(snapshots)
         .where(eq(snapshots.figureId, figure.id));
-      const params = run.params as { task?: unknown };
       const [snapshot] = await tx
         .insert(snapshots)
         .values({
           figureId: figure.id,
           manuscriptId: figure.manuscriptId,
           version: next,
-          kind: typeof params.task === 'string' ? params.task : figure.kind,
+          kind: run.params.task,
           label: figure.label,
           caption: figure.caption,
           params: run.params,

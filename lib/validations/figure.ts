@@ -1,25 +1,14 @@
 // Figure create/update payloads and URL ids, shared by the figure forms, the route handlers, the worker and the seed.
-// A figure's parameters are a solver task spec validated by the solver's own schema (lib/physics/schemas), kind === params.task.
+// Kinds, and the parameter schema of each kind, come from the figure-kind registry; kind and parameters must agree.
 import { z } from 'zod';
-import { taskSpecSchema, zodIssuesToSpecIssues, type TaskSpec } from '@/lib/physics/schemas';
-
-/** The figure kinds: one per solver task (lib/physics/run-task.ts `TASK_NAMES`; tests/runs checks they agree). */
-export const FIGURE_KINDS = [
-  'spectrum',
-  'flux-sweep',
-  'position-sweep',
-  'holonomy',
-  'degeneracy',
-  'nodal-lines',
-  'convergence',
-] as const;
-export type FigureKind = (typeof FIGURE_KINDS)[number];
+import { viewSpecSchema } from '@/lib/charts/view-spec';
+import { figureKind, figureKindSchema, isFigureKind, type FigureKind, type FigureParams } from '@/lib/figure-kinds/registry';
+import { taskSpecSchema, zodIssuesToSpecIssues } from '@/lib/physics/schemas';
+import { isTaskName } from '@/lib/physics/task-table';
 
 export const MAX_FIGURE_LABEL = 64;
 export const MAX_FIGURE_TITLE = 200;
 export const MAX_FIGURE_CAPTION = 2000;
-/** A Vega-Lite view spec is small; this bounds what one request can store (serialised JSON, characters). */
-export const MAX_VIEW_SPEC_CHARS = 100_000;
 
 /** A figure label: the handle notes use (`<Figure label="spectral-flow" />`) and LaTeX's `fig:<label>`. */
 export const figureLabelSchema = z
@@ -28,8 +17,6 @@ export const figureLabelSchema = z
   .min(1, 'Enter a label')
   .max(MAX_FIGURE_LABEL, `At most ${MAX_FIGURE_LABEL} characters`)
   .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'Use lower-case letters, digits and single hyphens (e.g. spectral-flow)');
-
-export const figureKindSchema = z.enum(FIGURE_KINDS, { error: `Choose one of: ${FIGURE_KINDS.join(', ')}` });
 
 export const figureTitleSchema = z
   .string({ error: 'The title must be text' })
@@ -41,13 +28,8 @@ export const figureCaptionSchema = z
   .trim()
   .max(MAX_FIGURE_CAPTION, `At most ${MAX_FIGURE_CAPTION} characters`);
 
-/** An editable Vega-Lite view spec (an object), or null to go back to the kind's default view. */
-export const viewSpecSchema = z
-  .record(z.string(), z.unknown(), { error: 'The view spec must be a JSON object' })
-  .refine((value) => JSON.stringify(value).length <= MAX_VIEW_SPEC_CHARS, {
-    error: `The view spec must be at most ${MAX_VIEW_SPEC_CHARS} characters of JSON`,
-  })
-  .nullable();
+/** A figure's view spec (the one schema in lib/charts/view-spec.ts: validated and sanitised), or null for the kind's default view. */
+export const figureViewSpecSchema = viewSpecSchema.nullable();
 
 /** `well.union[1].disk.radius` -> ['well', 'union', 1, 'disk', 'radius'] (the solver reports dotted paths). */
 function splitSpecPath(path: string): (string | number)[] {
@@ -58,63 +40,107 @@ function splitSpecPath(path: string): (string | number)[] {
   return parts;
 }
 
-/**
- * A figure's parameters: the solver's task spec, with the solver's own readable per-field messages (a union of
- * well shapes reports the branch the input meant, not every branch). The output has the defaults filled in.
- */
-export const taskParamsSchema = z.unknown().transform((value, ctx): TaskSpec => {
-  const parsed = taskSpecSchema.safeParse(value);
-  if (parsed.success) return parsed.data;
-  for (const issue of zodIssuesToSpecIssues(parsed.error.issues)) {
-    ctx.addIssue({ code: 'custom', message: issue.message, path: splitSpecPath(issue.path) });
-  }
-  return z.NEVER;
-});
-
-function kindMatchesTask(value: { kind?: string; params?: { task: string } }, ctx: z.RefinementCtx) {
-  if (value.kind !== undefined && value.params !== undefined && value.kind !== value.params.task) {
-    ctx.addIssue({
-      code: 'custom',
-      path: ['params', 'task'],
-      message: `The parameters are for task "${value.params.task}" but the figure kind is "${value.kind}"`,
-    });
-  }
+/** The kind a parameter object names itself: its `task` when that is a task; undefined when it names none or an unknown one. */
+function kindNamedBy(params: unknown): FigureKind | undefined {
+  const task = typeof params === 'object' && params !== null && !Array.isArray(params) ? (params as { task?: unknown }).task : undefined;
+  return isTaskName(task) && isFigureKind(task) ? task : undefined;
 }
 
-/** POST /api/manuscripts/[id]/figures. `params` is the solver spec (defaults filled in by the solver's schema). */
+/** Whether the parameters carry a `task` key at all (then they are a solver spec, whatever the task says). */
+function hasTask(params: unknown): boolean {
+  return typeof params === 'object' && params !== null && !Array.isArray(params) && 'task' in params;
+}
+
+/**
+ * The kind the parameters are checked against: the figure's kind when given; otherwise the kind the parameters name,
+ * the data kind when they carry no task (today uploaded data is the one kind without a solver task), or undefined (an
+ * unknown task: the solver's union then says which tasks exist).
+ */
+function kindForParams(kind: FigureKind | undefined, params: unknown): FigureKind | undefined {
+  if (kind !== undefined) return kind;
+  if (hasTask(params)) return kindNamedBy(params);
+  return 'uploaded-data';
+}
+
+/**
+ * Check `params` against the schema of `kind` and report each problem at its own path under `params` with the
+ * solver's readable messages (a union of well shapes reports the branch the input meant). Returns the parsed
+ * parameters (defaults filled in), or undefined when they are not valid.
+ */
+function checkParams(kind: FigureKind | undefined, params: unknown, ctx: z.RefinementCtx): FigureParams | undefined {
+  const named = kindNamedBy(params);
+  if (kind !== undefined && hasTask(params) && named !== undefined && named !== kind) {
+    ctx.addIssue({ code: 'custom', path: ['params', 'task'], message: `The parameters are for task "${named}" but the figure kind is "${kind}"` });
+    return undefined;
+  }
+  const schema: z.ZodType = kind === undefined ? taskSpecSchema : figureKind(kind).paramsSchema;
+  const parsed = schema.safeParse(params);
+  if (parsed.success) return parsed.data as FigureParams;
+  for (const issue of zodIssuesToSpecIssues(parsed.error.issues)) {
+    ctx.addIssue({ code: 'custom', message: issue.message, path: ['params', ...splitSpecPath(issue.path)] });
+  }
+  return undefined;
+}
+
+const figureFields = {
+  label: figureLabelSchema,
+  title: figureTitleSchema,
+  caption: figureCaptionSchema,
+  params: z.unknown(),
+  viewSpec: figureViewSpecSchema,
+};
+
+/**
+ * POST /api/manuscripts/[id]/figures. `params` are checked by the schema of `kind` (a solver spec for computed kinds,
+ * defaults filled in; a table for uploaded data).
+ */
 export const createFigureSchema = z
   .object({
-    label: figureLabelSchema,
+    label: figureFields.label,
     kind: figureKindSchema,
-    title: figureTitleSchema.default(''),
-    caption: figureCaptionSchema.default(''),
-    params: taskParamsSchema,
-    viewSpec: viewSpecSchema.optional(),
+    title: figureFields.title.default(''),
+    caption: figureFields.caption.default(''),
+    params: figureFields.params,
+    viewSpec: figureFields.viewSpec.optional(),
   })
   .strict()
-  .superRefine(kindMatchesTask);
+  // A refinement (not a transform) so that parameter problems are reported together with those of the other fields.
+  .superRefine((value, ctx) => void checkParams(value.kind, value.params, ctx))
+  .transform((value, ctx) => {
+    const params = checkParams(value.kind, value.params, ctx);
+    if (params === undefined) return z.NEVER;
+    return { ...value, params };
+  });
 export type CreateFigure = z.infer<typeof createFigureSchema>;
 export type CreateFigureInput = z.input<typeof createFigureSchema>;
 
-/** PATCH /api/figures/[figureId]: any subset; a new `params` may change the kind (then `kind` must agree with it). */
+/**
+ * PATCH /api/figures/[figureId]: any subset. New `params` may change the kind: `kind` is then the kind they are for
+ * (their task, or uploaded data for a table) unless given, and the output always carries it beside the new params.
+ */
 export const updateFigureSchema = z
   .object({
-    label: figureLabelSchema.optional(),
+    label: figureFields.label.optional(),
     kind: figureKindSchema.optional(),
-    title: figureTitleSchema.optional(),
-    caption: figureCaptionSchema.optional(),
-    params: taskParamsSchema.optional(),
-    viewSpec: viewSpecSchema.optional(),
+    title: figureFields.title.optional(),
+    caption: figureFields.caption.optional(),
+    params: figureFields.params.optional(),
+    viewSpec: figureFields.viewSpec.optional(),
   })
   .strict()
-  .superRefine(kindMatchesTask)
   .superRefine((value, ctx) => {
-    if (value.kind !== undefined && value.params === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['kind'], message: 'Change the kind together with parameters for that kind' });
-    }
+    if (value.params !== undefined) checkParams(kindForParams(value.kind, value.params), value.params, ctx);
+    else if (value.kind !== undefined) ctx.addIssue({ code: 'custom', path: ['kind'], message: 'Change the kind together with parameters for that kind' });
   })
   .refine((value) => Object.values(value).some((field) => field !== undefined), {
     error: 'Change at least one of: label, title, caption, params, viewSpec',
+  })
+  .transform((value, ctx) => {
+    if (value.params === undefined) return { ...value, kind: undefined, params: undefined };
+    const kind = kindForParams(value.kind, value.params);
+    const params = checkParams(kind, value.params, ctx);
+    if (kind === undefined || params === undefined) return z.NEVER;
+    return { ...value, kind, params };
   });
 export type UpdateFigure = z.infer<typeof updateFigureSchema>;
 

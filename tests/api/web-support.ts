@@ -16,6 +16,7 @@ import { APP_URL } from '../helpers/app';
 import { createTestUser, RUN_TAG, TEST_PASSWORD } from '../helpers/db';
 import { linksIn, waitForMailTo as waitForStoredMail, type StoredMessage } from '../helpers/mail';
 import { listMessages } from '@/lib/mail/mailbox';
+import type { TaskSpec } from '@/lib/physics/schemas';
 
 export { APP_URL };
 
@@ -62,18 +63,21 @@ export async function createManuscript({
 }
 let manuscriptCounter = 0;
 
+/** A valid spectrum spec (defaults spelled out) for rows that only need to exist; nothing computes it. */
+const PLACEHOLDER_SPEC: TaskSpec = { task: 'spectrum', well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 0.25 }, tubes: [], levels: 1 };
+
 /** Freeze one snapshot for the manuscript (figure + result + snapshot rows), as the figures step would. */
 export async function addSnapshot({ manuscriptId }: { manuscriptId: string }) {
   const [figure] = await db
     .insert(figures)
-    .values({ manuscriptId, label: `fig-${RUN}-${++manuscriptCounter}`, kind: 'spectrum', params: {} })
+    .values({ manuscriptId, label: `fig-${RUN}-${++manuscriptCounter}`, kind: 'spectrum', params: PLACEHOLDER_SPEC })
     .returning();
   const [result] = await db
     .insert(results)
     .values({
       inputHash: `test-input-${RUN}-${manuscriptCounter}`,
       solverVersion: 'test',
-      params: {},
+      params: PLACEHOLDER_SPEC,
       data: {},
       diagnostics: {},
       resultHash: `test-result-${RUN}-${manuscriptCounter}`,
@@ -86,7 +90,7 @@ export async function addSnapshot({ manuscriptId }: { manuscriptId: string }) {
     kind: 'spectrum',
     label: figure.label,
     caption: '',
-    params: {},
+    params: PLACEHOLDER_SPEC,
     solverVersion: 'test',
     resultId: result.id,
     resultHash: result.resultHash,

@@ -3,7 +3,11 @@
 import { eq, sql, TransactionRollbackError } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { figures, manuscripts, results, snapshots, users } from '@/db/schema';
+import type { TaskSpec } from '@/lib/physics/schemas';
 import { testDb, uniqueTag } from '../helpers/db';
+
+/** A valid spectrum spec for rows that only need to exist; nothing computes it. */
+const ROW_SPEC: TaskSpec = { task: 'spectrum', well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 0.25 }, tubes: [], levels: 4 };
 
 /** The PostgreSQL error under Drizzle's wrapper (DrizzleQueryError keeps it as `cause`). */
 function pgError(error: unknown): { code?: string; message: string } {
@@ -36,14 +40,14 @@ describe('snapshot immutability (database trigger)', () => {
         .returning();
       const [figure] = await tx
         .insert(figures)
-        .values({ manuscriptId: manuscript.id, label: `fig-${tag}`, kind: 'spectrum', params: { levels: 4 } })
+        .values({ manuscriptId: manuscript.id, label: `fig-${tag}`, kind: 'spectrum', params: ROW_SPEC })
         .returning();
       const [result] = await tx
         .insert(results)
         .values({
           inputHash: `input-${tag}`,
           solverVersion: 'test',
-          params: { levels: 4 },
+          params: ROW_SPEC,
           data: { energies: [1, 2, 3, 4] },
           diagnostics: {},
           resultHash: `result-${tag}`,

@@ -176,7 +176,15 @@ describe('view specs', () => {
 
   it('refuses oversized or non-object view specs', () => {
     expect(viewSpecSchema.safeParse([1, 2]).success).toBe(false);
-    expect(viewSpecSchema.safeParse({ big: 'x'.repeat(70_000) }).success).toBe(false);
+    expect(viewSpecSchema.safeParse({ big: 'x'.repeat(100_001) }).success).toBe(false);
+  });
+
+  it('chartSpecFor validates a stored view spec again before drawing', () => {
+    const { spec, result } = results['flux-sweep'];
+    expect(() => chartSpecFor('flux-sweep', result, { units: DIMENSIONLESS, params: spec, viewSpec: [1, 2] })).toThrow(/view spec cannot be used/);
+    const drawn = chartSpecFor('flux-sweep', result, { units: DIMENSIONLESS, params: spec, viewSpec: { title: 'T', datasets: { x: [1] }, $schema: 'x' } });
+    expect(JSON.stringify(drawn)).not.toContain('datasets');
+    expect((drawn as unknown as Record<string, unknown>).title).toBe('T');
   });
 
   it('clear errors for unknown kinds, views and incomplete results', () => {
@@ -188,7 +196,7 @@ describe('view specs', () => {
   });
 
   it('uploaded data: columns against the first', async () => {
-    const chart = defaultViewSpec('upload', { columns: ['alpha', 'E0', 'E1'], rows: [[0, 5.8, 14.7], [0.5, 9.9, 9.9]] });
+    const chart = defaultViewSpec('uploaded-data', { columns: ['alpha', 'E0', 'E1'], rows: [[0, 5.8, 14.7], [0.5, 9.9, 9.9]] });
     expect(compileQuietly(chart)).toEqual([]);
     expect((await renderSvg(chart)).svg).toContain('alpha');
   });

@@ -106,4 +106,16 @@ describe('result cache', () => {
       fields: { 'params.grid.h': [expect.any(String)] },
     });
   });
+
+  it('refuses to run a figure of a kind without a solver task (uploaded data) and writes no run', async () => {
+    const world = await createWorld('author');
+    const figure = await createTestFigure(world, { columns: ['alpha', 'E0'], rows: [[0, 5.8], [0.5, 9.9]] }, { kind: 'uploaded-data' });
+    expect(figure.kind).toBe('uploaded-data');
+    await expect(startRun({ figure, user: world.user, enqueue: null })).rejects.toMatchObject({
+      status: 409,
+      message: expect.stringContaining('"uploaded-data" are not computed'),
+    });
+    const rows = await db.select({ n: sql<number>`count(*)::int` }).from(runs).where(eq(runs.figureId, figure.id));
+    expect(rows[0].n).toBe(0);
+  });
 });

@@ -5,6 +5,7 @@ import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { createFigure } from '@/db/queries/figures';
 import { figures, manuscripts, memberships, users, type Figure, type MemberRole } from '@/db/schema';
+import type { FigureParams } from '@/lib/figure-kinds/registry';
 import { createFigureSchema, type CreateFigureInput } from '@/lib/validations/figure';
 
 /** A fast spectrum: unit disk, half tube at the centre, coarse grid (a few hundred unknowns). */
@@ -65,9 +66,13 @@ export async function createTestFigure(
   return createFigure({ manuscriptId: world.manuscript.id, input, userId: world.user.id });
 }
 
-/** Set a figure's params directly (as a PATCH would). */
+/** Set a figure's params directly, unchecked (runs must validate them again). */
 export async function setFigureParams(figureId: string, params: Record<string, unknown>): Promise<Figure> {
-  const [row] = await db.update(figures).set({ params }).where(eq(figures.id, figureId)).returning();
+  const [row] = await db
+    .update(figures)
+    .set({ params: params as FigureParams })
+    .where(eq(figures.id, figureId))
+    .returning();
   return row;
 }
 

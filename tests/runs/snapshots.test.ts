@@ -9,6 +9,7 @@ import { insertRun } from '@/db/queries/runs';
 import { getSnapshotContext, listSnapshotsByFigure } from '@/db/queries/snapshots';
 import { snapshots, type Figure, type Snapshot } from '@/db/schema';
 import { executeRun } from '@/lib/jobs/run-job';
+import { parseTaskSpec } from '@/lib/physics/schemas';
 import { startRun } from '@/lib/runs/start-run';
 import { snapshotBundle, snapshotBundleCsv, type SnapshotBundle } from '@/lib/snapshots/bundle';
 import { freezeRun } from '@/lib/snapshots/freeze';
@@ -78,7 +79,7 @@ describe('freezing', () => {
   it('refuses a run that has not succeeded, and a run frozen already', async () => {
     for (const status of ['queued', 'running', 'failed', 'cancelled'] as const) {
       const unfinished = await insertRun({
-        values: { figureId: figure.id, params: figure.params, inputHash: '0'.repeat(64), solverVersion: 'test', status },
+        values: { figureId: figure.id, params: parseTaskSpec(figure.params), inputHash: '0'.repeat(64), solverVersion: 'test', status },
       });
       await expect(freezeRun({ runId: unfinished.id, user: world.user })).rejects.toMatchObject({
         status: 409,

@@ -1,15 +1,9 @@
-// The task spec: a discriminated union on `task` of every task's schema, and `parseTaskSpec` for all entry points.
+// The task spec: a discriminated union on `task` of every schema in the task table, and `parseTaskSpec` for all entry points.
 // Invalid input becomes a SpecError listing "path: message" for every problem.
 import { z } from 'zod';
 import { SpecError } from '../errors';
-import { convergenceSpecSchema } from './convergence';
-import { degeneracySpecSchema } from './degeneracy';
-import { fluxSweepSpecSchema } from './flux-sweep';
-import { holonomySpecSchema } from './holonomy';
+import { TASK_NAMES, TASK_TABLE, type TaskName, type TaskSpecSchemaOf } from '../task-table';
 import { zodIssuesToSpecIssues } from './issues';
-import { nodalLinesSpecSchema } from './nodal-lines';
-import { positionSweepSpecSchema } from './position-sweep';
-import { spectrumSpecSchema } from './spectrum';
 
 export * from './common';
 export * from './spectrum';
@@ -21,24 +15,16 @@ export * from './nodal-lines';
 export * from './convergence';
 export { formatPath, zodIssuesToSpecIssues } from './issues';
 
-export const taskSpecSchema = z.discriminatedUnion(
-  'task',
-  [
-    spectrumSpecSchema,
-    fluxSweepSpecSchema,
-    positionSweepSpecSchema,
-    holonomySpecSchema,
-    degeneracySpecSchema,
-    nodalLinesSpecSchema,
-    convergenceSpecSchema,
-  ],
-  {
-    error: (issue) =>
-      issue.code === 'invalid_union'
-        ? 'task must be one of spectrum, flux-sweep, position-sweep, holonomy, degeneracy, nodal-lines, convergence'
-        : undefined,
-  },
-);
+/** One schema per task, in the task table's order (the union needs a non-empty tuple). */
+const TASK_SPEC_SCHEMAS = TASK_NAMES.map((name) => TASK_TABLE[name].schema) as unknown as [
+  TaskSpecSchemaOf<TaskName>,
+  ...TaskSpecSchemaOf<TaskName>[],
+];
+
+/** Any task spec: a union on `task` of every task's schema in the task table (lib/physics/task-table.ts). */
+export const taskSpecSchema = z.discriminatedUnion('task', TASK_SPEC_SCHEMAS, {
+  error: (issue) => (issue.code === 'invalid_union' ? `task must be one of ${TASK_NAMES.join(', ')}` : undefined),
+});
 export type TaskSpec = z.infer<typeof taskSpecSchema>;
 /** A task spec as written by a user, before defaults are applied. */
 export type TaskSpecInput = z.input<typeof taskSpecSchema>;

@@ -1,16 +1,16 @@
-// The "new figure" form: label, kind and title; the figure starts with the kind's default parameters
-// (POST /api/manuscripts/[id]/figures), then opens on its own page to be tuned and run.
+// The "new figure" form: label, computed kind and title; the figure starts with the kind's default parameters from the
+// figure-kind registry (POST /api/manuscripts/[id]/figures), then opens on its own page to be tuned and run.
 'use client';
 
 import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
 import { sendJson } from '@/lib/fetcher';
-import { FIGURE_KINDS, figureLabelSchema, type FigureKind } from '@/lib/validations/figure';
+import { COMPUTED_FIGURE_KINDS, defaultParams, KIND_LABELS, type FigureKind } from '@/lib/figure-kinds/registry';
+import { figureLabelSchema } from '@/lib/validations/figure';
 import { Button } from '../../../_components/button';
 import { SelectField, TextField } from '../../../_components/field';
 import { InlineAlert } from '../../../_components/form-alert';
 import { errorFields } from '../../../_components/form-fields';
-import { defaultParams, KIND_LABELS } from '../../../_components/figures/default-params';
 
 export function NewFigureForm({ manuscriptId, manuscriptSlug }: { manuscriptId: string; manuscriptSlug: string }) {
   const router = useRouter();
@@ -53,7 +53,7 @@ export function NewFigureForm({ manuscriptId, manuscriptSlug }: { manuscriptId: 
         data-testid="new-figure-label"
       />
       <SelectField label="Kind" value={kind} onChange={(e) => setKind(e.target.value as FigureKind)} errors={errors.kind} data-testid="new-figure-kind">
-        {FIGURE_KINDS.map((k) => (
+        {COMPUTED_FIGURE_KINDS.map((k) => (
           <option key={k} value={k}>
             {KIND_LABELS[k]}
           </option>

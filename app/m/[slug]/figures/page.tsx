@@ -6,11 +6,10 @@ import { listFiguresByManuscript } from '@/db/queries/figures';
 import { getLatestRun } from '@/db/queries/runs';
 import { listSnapshotsByManuscript } from '@/db/queries/snapshots';
 import { Card } from '../../../_components/card';
-import { KIND_LABELS } from '../../../_components/figures/default-params';
 import { ListBesideForm } from '../../../_components/figures/list-beside-form';
 import { requireManuscriptPage } from '../../../_components/figures/page-access';
 import { SectionHeader } from '../../../_components/figures/section-header';
-import type { FigureKind } from '@/lib/validations/figure';
+import { KIND_LABELS, type FigureKind } from '@/lib/figure-kinds/registry';
 import { NewFigureForm } from './new-figure-form';
 
 type Props = { params: Promise<{ slug: string }> };

@@ -1,38 +1,17 @@
-// The parameter form of a figure (react-hook-form + the solver's own zod schema for the figure's kind): well, lattice,
-// tubes and the task's fields with units and inline errors, a live to-scale drawing, and save (PATCH) with server errors.
+// The parameter form of a figure (react-hook-form + the kind's schema from the figure-kind registry): well, lattice and
+// tubes where the kind has them, the kind's own fields, a live to-scale drawing, and save (PATCH) with server errors.
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { forwardRef, useEffect, useImperativeHandle, useState } from 'react';
 import { FormProvider, useForm, useWatch, type FieldValues, type Resolver } from 'react-hook-form';
-import type { z } from 'zod';
 import { updateFigure } from '@/hooks/use-figure';
 import { ApiError } from '@/lib/fetcher';
-import {
-  convergenceSpecSchema,
-  degeneracySpecSchema,
-  fluxSweepSpecSchema,
-  holonomySpecSchema,
-  nodalLinesSpecSchema,
-  positionSweepSpecSchema,
-  spectrumSpecSchema,
-} from '@/lib/physics/schemas';
-import type { FigureKind } from '@/lib/validations/figure';
+import { figureKind, type FigureKind } from '@/lib/figure-kinds/registry';
 import { Button } from '../../../../_components/button';
 import { WellDrawing } from '../../../../_components/figures/well-drawing';
 import { TaskFields } from './task-fields';
 import { GridFields, TubeFields, WellFields } from './well-fields';
-
-/** The solver's schema for each figure kind (the same ones the API, worker and CLI use). */
-export const KIND_SCHEMAS: Record<FigureKind, z.ZodType> = {
-  spectrum: spectrumSpecSchema,
-  'flux-sweep': fluxSweepSpecSchema,
-  'position-sweep': positionSweepSpecSchema,
-  holonomy: holonomySpecSchema,
-  degeneracy: degeneracySpecSchema,
-  'nodal-lines': nodalLinesSpecSchema,
-  convergence: convergenceSpecSchema,
-};
 
 const blank = (v: unknown) => v === undefined || v === null || (typeof v === 'number' && Number.isNaN(v));
 
@@ -52,7 +31,8 @@ export function normalizeSpec(values: FieldValues): FieldValues {
 }
 
 function resolverFor(kind: FigureKind): Resolver<FieldValues> {
-  const inner = zodResolver(KIND_SCHEMAS[kind] as never) as unknown as Resolver<FieldValues>;
+  // The kind's parameter schema from the registry: the same one the API, worker and CLI use.
+  const inner = zodResolver(figureKind(kind).paramsSchema as never) as unknown as Resolver<FieldValues>;
   return (values, context, options) => inner(normalizeSpec(values), context, options);
 }
 
@@ -125,7 +105,7 @@ export const ParamsForm = forwardRef<ParamsFormHandle, ParamsFormProps>(function
     saveIfDirty: async () => (formState.isDirty ? submit() : true),
   }));
 
-  const prefix = kind === 'convergence' ? 'of.' : '';
+  const prefix = figureKind(kind).problemAt;
   const sweptIndex = kind === 'flux-sweep' ? Number((watched as FieldValues).sweep?.tube) : null;
   return (
     <FormProvider {...methods}>
@@ -139,9 +119,13 @@ export const ParamsForm = forwardRef<ParamsFormHandle, ParamsFormProps>(function
         data-testid="params-form"
       >
         <div className="space-y-6">
-          <WellFields prefix={prefix} />
-          <GridFields prefix={prefix} />
-          <TubeFields prefix={prefix} sweptIndex={sweptIndex} />
+          {prefix === null ? null : (
+            <>
+              <WellFields prefix={prefix} />
+              <GridFields prefix={prefix} />
+              <TubeFields prefix={prefix} sweptIndex={sweptIndex} />
+            </>
+          )}
           <TaskFields kind={kind} />
           <div className="flex flex-wrap items-center gap-3">
             <Button type="submit" busy={formState.isSubmitting} disabled={!formState.isDirty} data-testid="save-params">
@@ -159,10 +143,12 @@ export const ParamsForm = forwardRef<ParamsFormHandle, ParamsFormProps>(function
             ) : null}
           </div>
         </div>
-        <div className="lg:sticky lg:top-4 lg:self-start">
-          <p className="mb-2 text-xs font-medium text-slate-600">To scale, as you type</p>
-          <WellDrawing params={normalizeSpec(watched as FieldValues)} idPrefix={`form-${figureId}`} lengthNm={lengthNm} />
-        </div>
+        {prefix === null ? null : (
+          <div className="lg:sticky lg:top-4 lg:self-start">
+            <p className="mb-2 text-xs font-medium text-slate-600">To scale, as you type</p>
+            <WellDrawing params={normalizeSpec(watched as FieldValues)} idPrefix={`form-${figureId}`} lengthNm={lengthNm} />
+          </div>
+        )}
       </form>
     </FormProvider>
   );

@@ -5,7 +5,7 @@
 import { useId, useState } from 'react';
 import { updateFigure } from '@/hooks/use-figure';
 import { ApiError } from '@/lib/fetcher';
-import { viewSpecSchema } from '@/lib/validations/figure';
+import { viewSpecSchema } from '@/lib/charts/view-spec';
 import { Button } from '../../../../_components/button';
 
 export interface ViewSpecEditorProps {
