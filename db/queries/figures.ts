@@ -3,9 +3,18 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { db, type Db } from '@/db';
 import { figures, snapshots, type Figure } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
-import type { CreateFigure, UpdateFigure } from '@/lib/validations/figure';
+import { conflict } from '@/lib/domain-error';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
+
+type NewFigure = typeof figures.$inferInsert;
+
+/** What a figure is created from: validated by the caller (kind === params.task, defaults filled in). */
+export type FigureValues = Pick<NewFigure, 'label' | 'kind' | 'title' | 'caption' | 'params' | 'viewSpec'>;
+
+/** The fields a patch may change; new `params` also set the figure's kind to their `task`. */
+export type FigurePatch = Partial<Pick<NewFigure, 'label' | 'title' | 'caption' | 'viewSpec'>> & {
+  params?: { task: string };
+};
 
 /** The figures of a manuscript, by label. */
 export async function listFiguresByManuscript({ manuscriptId, database = db }: { manuscriptId: string; database?: Db }): Promise<Figure[]> {
@@ -51,7 +60,7 @@ export async function createFigure({
   database = db,
 }: {
   manuscriptId: string;
-  input: CreateFigure;
+  input: FigureValues;
   userId: string | null;
   database?: Db;
 }): Promise<Figure> {
@@ -76,8 +85,8 @@ export async function createFigure({
 }
 
 /** Apply a validated patch; new params also set the kind to their task. 409 on a duplicate label. */
-export async function updateFigure({ id, patch, database = db }: { id: string; patch: UpdateFigure; database?: Db }): Promise<Figure | null> {
-  const values: Partial<typeof figures.$inferInsert> = { updatedAt: new Date() };
+export async function updateFigure({ id, patch, database = db }: { id: string; patch: FigurePatch; database?: Db }): Promise<Figure | null> {
+  const values: Partial<NewFigure> = { updatedAt: new Date() };
   if (patch.label !== undefined) values.label = patch.label;
   if (patch.title !== undefined) values.title = patch.title;
   if (patch.caption !== undefined) values.caption = patch.caption;

@@ -3,7 +3,7 @@
 import { and, asc, desc, eq, inArray, like, or } from 'drizzle-orm';
 import { db, type Db } from '@/db';
 import { noteRevisions, notes, users, type Note, type NoteRevision } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
+import { conflict } from '@/lib/domain-error';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 
 /** The notes of a manuscript in reading order (position, then title). */

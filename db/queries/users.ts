@@ -3,7 +3,7 @@
 import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { users, type User } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
+import { conflict } from '@/lib/domain-error';
 import type { Executor } from './executor';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 

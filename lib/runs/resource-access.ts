@@ -7,16 +7,16 @@ import { getSnapshotById } from '@/db/queries/snapshots';
 import type { Figure, Note, Run, Snapshot } from '@/db/schema';
 import type { CurrentUser } from '@/lib/auth/session';
 import { authorizeManuscript, type ManuscriptAccess, type ManuscriptAction } from '@/lib/authz/manuscript-access';
-import { HttpError, notFound } from '@/lib/http/errors';
+import { isDomainError, notFound, unauthenticated } from '@/lib/domain-error';
 
 type Caller = Pick<CurrentUser, 'id' | 'isAdmin'> | null;
 
-/** Ask the manuscript helper, answering its 404 with the resource's own 404 message. */
+/** Ask the manuscript helper, answering its not-found with the resource's own not-found message. */
 async function authorizeVia(user: Caller, manuscriptId: string, need: ManuscriptAction, missing: string): Promise<ManuscriptAccess> {
   try {
     return await authorizeManuscript({ user, manuscriptId, need });
   } catch (error) {
-    if (error instanceof HttpError && error.status === 404) throw notFound(missing);
+    if (isDomainError(error, 'not-found')) throw notFound(missing);
     throw error;
   }
 }
@@ -24,7 +24,8 @@ async function authorizeVia(user: Caller, manuscriptId: string, need: Manuscript
 /**
  * A figure and the caller's access to its manuscript.
  *
- * @throws HttpError 401 without a session, 404 for an unknown or foreign figure, 403 when the role is too low
+ * @throws DomainError `unauthenticated` without a session, `not-found` for an unknown or foreign figure, `forbidden`
+ *   when the role is too low
  */
 export async function authorizeFigure({
   user,
@@ -35,7 +36,7 @@ export async function authorizeFigure({
   figureId: string;
   need: ManuscriptAction;
 }): Promise<{ figure: Figure; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const figure = await getFigureById({ id: figureId });
   if (!figure) throw notFound('Figure not found');
   return { figure, access: await authorizeVia(user, figure.manuscriptId, need, 'Figure not found') };
@@ -51,7 +52,7 @@ export async function authorizeRun({
   runId: string;
   need: ManuscriptAction;
 }): Promise<{ run: Run; figure: Figure; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const run = await getRunById({ id: runId });
   const figure = run ? await getFigureById({ id: run.figureId }) : null;
   if (!run || !figure) throw notFound('Run not found');
@@ -68,7 +69,7 @@ export async function authorizeSnapshot({
   snapshotId: string;
   need: ManuscriptAction;
 }): Promise<{ snapshot: Snapshot; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const snapshot = await getSnapshotById({ id: snapshotId });
   if (!snapshot) throw notFound('Snapshot not found');
   return { snapshot, access: await authorizeVia(user, snapshot.manuscriptId, need, 'Snapshot not found') };
@@ -84,7 +85,7 @@ export async function authorizeNote({
   noteId: string;
   need: ManuscriptAction;
 }): Promise<{ note: Note; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const note = await getNoteById({ id: noteId });
   if (!note) throw notFound('Note not found');
   return { note, access: await authorizeVia(user, note.manuscriptId, need, 'Note not found') };
