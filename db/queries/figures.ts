@@ -1,5 +1,5 @@
 // Queries about figures: list per manuscript, look-ups, create, update and delete (refused once a snapshot exists).
-// Labels are unique per manuscript: a duplicate becomes a 409 with a message naming the label.
+// Labels are unique per manuscript: a duplicate becomes a `conflict` with a message naming the label.
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { db, type Db } from '@/db';
 import { figures, snapshots, type Figure } from '@/db/schema';
@@ -52,7 +52,10 @@ function duplicateLabel(error: unknown, label: string | undefined): never {
   throw error;
 }
 
-/** Create a figure from validated input (kind and params agree: the schema checked it). 409 on a duplicate label. */
+/**
+ * Create a figure from validated input (the caller's schema checked that kind and params agree). `conflict` on a
+ * duplicate label.
+ */
 export async function createFigure({
   manuscriptId,
   input,
@@ -84,7 +87,7 @@ export async function createFigure({
   }
 }
 
-/** Apply a validated patch; new params also set the kind to their task. 409 on a duplicate label. */
+/** Apply a validated patch; new params also set the kind to their task. `conflict` on a duplicate label. */
 export async function updateFigure({ id, patch, database = db }: { id: string; patch: FigurePatch; database?: Db }): Promise<Figure | null> {
   const values: Partial<NewFigure> = { updatedAt: new Date() };
   if (patch.label !== undefined) values.label = patch.label;
@@ -113,8 +116,8 @@ export async function countSnapshotsOfFigure({ figureId, database = db }: { figu
 }
 
 /**
- * Delete a figure and its runs (cascade). Refused with 409 when the figure has a frozen snapshot: snapshots are
- * cited, so their figure stays (the foreign key also refuses it).
+ * Delete a figure and its runs (cascade). Refused with a `conflict` when the figure has a frozen snapshot: snapshots
+ * are cited, so their figure stays (the foreign key also refuses it).
  */
 export async function deleteFigureById({ id, database = db }: { id: string; database?: Db }): Promise<boolean> {
   return database.transaction(async (tx) => {

@@ -1,5 +1,5 @@
-// Queries about invitations: read and write rows only. The rules (who may accept, expiry, which role the member
-// gets, replacing a pending invitation) live in lib/invitations; links carry a token of which only the SHA-256 is stored.
+// Queries about invitations: read and write rows only (links carry a token; only its SHA-256 is stored). The rules
+// (who may accept, expiry, which role the member gets, replacing a pending invitation) live in lib/invitations.
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';

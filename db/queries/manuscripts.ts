@@ -174,7 +174,7 @@ export async function countSnapshotsForManuscripts({ ids }: { ids: string[] }): 
 }
 
 /**
- * Delete a manuscript and everything that cascades from it. Throws 409 while it has a frozen snapshot:
+ * Delete a manuscript and everything that cascades from it. Throws a `conflict` while it has a frozen snapshot:
  * snapshots are cited by others and must stay resolvable.
  */
 export async function deleteManuscriptById({ id }: { id: string }): Promise<void> {

@@ -68,7 +68,7 @@ function assertKeepsAnOwner(rows: Membership[], userId: string, nextRole: Member
   }
 }
 
-/** Change a member's role. 404 when not a member; 409 when it would leave no owner. */
+/** Change a member's role. `not-found` when not a member; `conflict` when it would leave no owner. */
 export async function updateMemberRole({
   manuscriptId,
   userId,
@@ -91,7 +91,7 @@ export async function updateMemberRole({
   });
 }
 
-/** Remove a member. 404 when not a member; 409 when it would leave no owner. */
+/** Remove a member. `not-found` when not a member; `conflict` when it would leave no owner. */
 export async function removeMember({ manuscriptId, userId }: { manuscriptId: string; userId: string }): Promise<void> {
   await db.transaction(async (tx) => {
     const rows = await lockMemberships(tx, manuscriptId);

@@ -32,7 +32,7 @@ export async function getUserByEmail({ email }: { email: string }): Promise<User
 }
 
 /**
- * Create a password account. Throws 409 when the address is taken.
+ * Create a password account. Throws a `conflict` when the address is taken.
  *
  * @param emailVerified - when the address was proven (an invitation link opened from the mailbox proves it)
  */

@@ -1,5 +1,5 @@
 // Authorisation of figure, run, snapshot and note ids: load the row, then ask the one manuscript helper about its
-// manuscript. An unknown id and a foreign one give the same 404, so ids of other groups' work reveal nothing.
+// manuscript. An unknown id and a foreign one give the same not-found, so ids of other groups' work reveal nothing.
 import { getFigureById } from '@/db/queries/figures';
 import { getNoteById } from '@/db/queries/notes';
 import { getRunById } from '@/db/queries/runs';
@@ -42,7 +42,7 @@ export async function authorizeFigure({
   return { figure, access: await authorizeVia(user, figure.manuscriptId, need, 'Figure not found') };
 }
 
-/** A run, its figure and the caller's access (same errors as {@link authorizeFigure}, 404 "Run not found"). */
+/** A run, its figure and the caller's access (same errors as {@link authorizeFigure}, not-found "Run not found"). */
 export async function authorizeRun({
   user,
   runId,
@@ -59,7 +59,7 @@ export async function authorizeRun({
   return { run, figure, access: await authorizeVia(user, figure.manuscriptId, need, 'Run not found') };
 }
 
-/** A snapshot and the caller's access (404 "Snapshot not found" for unknown or foreign ids). */
+/** A snapshot and the caller's access (not-found "Snapshot not found" for unknown or foreign ids). */
 export async function authorizeSnapshot({
   user,
   snapshotId,
@@ -75,7 +75,7 @@ export async function authorizeSnapshot({
   return { snapshot, access: await authorizeVia(user, snapshot.manuscriptId, need, 'Snapshot not found') };
 }
 
-/** A note and the caller's access (404 "Note not found" for unknown or foreign ids). */
+/** A note and the caller's access (not-found "Note not found" for unknown or foreign ids). */
 export async function authorizeNote({
   user,
   noteId,

@@ -5,7 +5,7 @@ import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { checkNoteSource } from '@/lib/mdx/check-note';
 import { authorizeNote } from '@/lib/runs/resource-access';
-import { unsafeNoteResponse } from '@/lib/runs/unsafe-note-response';
+import { unsafeNoteResponse } from '@/lib/http/unsafe-note-response';
 import { noteParamsSchema, saveNoteSchema } from '@/lib/validations/note';
 
 export const runtime = 'nodejs';
