@@ -1,11 +1,18 @@
 // Queries about figures: list per manuscript, look-ups, create, update and delete (refused once a snapshot exists).
-// Labels are unique per manuscript: a duplicate becomes a 409 with a message naming the label.
+// Labels are unique per manuscript: a duplicate becomes a `conflict` with a message naming the label.
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { db, type Db } from '@/db';
 import { figures, snapshots, type Figure } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
-import type { CreateFigure, UpdateFigure } from '@/lib/validations/figure';
+import { conflict } from '@/lib/domain-error';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
+
+type NewFigure = typeof figures.$inferInsert;
+
+/** What a figure is created from: validated by the caller (kind and params agree, defaults filled in). */
+export type FigureValues = Pick<NewFigure, 'label' | 'kind' | 'title' | 'caption' | 'params' | 'viewSpec'>;
+
+/** The fields a patch may change; new `params` come with their `kind` (validated by the caller). */
+export type FigurePatch = Partial<Pick<NewFigure, 'label' | 'kind' | 'title' | 'caption' | 'params' | 'viewSpec'>>;
 
 /** The figures of a manuscript, by label. */
 export async function listFiguresByManuscript({ manuscriptId, database = db }: { manuscriptId: string; database?: Db }): Promise<Figure[]> {
@@ -43,7 +50,10 @@ function duplicateLabel(error: unknown, label: string | undefined): never {
   throw error;
 }
 
-/** Create a figure from validated input (kind and params agree: the schema checked it). 409 on a duplicate label. */
+/**
+ * Create a figure from validated input (the caller's schema checked that kind and params agree). `conflict` on a
+ * duplicate label.
+ */
 export async function createFigure({
   manuscriptId,
   input,
@@ -51,7 +61,7 @@ export async function createFigure({
   database = db,
 }: {
   manuscriptId: string;
-  input: CreateFigure;
+  input: FigureValues;
   userId: string | null;
   database?: Db;
 }): Promise<Figure> {
@@ -75,9 +85,9 @@ export async function createFigure({
   }
 }
 
-/** Apply a validated patch; new params come with their kind (the schema sets it). 409 on a duplicate label. */
-export async function updateFigure({ id, patch, database = db }: { id: string; patch: UpdateFigure; database?: Db }): Promise<Figure | null> {
-  const values: Partial<typeof figures.$inferInsert> = { updatedAt: new Date() };
+/** Apply a validated patch; new params come with their kind (the schema sets it). `conflict` on a duplicate label. */
+export async function updateFigure({ id, patch, database = db }: { id: string; patch: FigurePatch; database?: Db }): Promise<Figure | null> {
+  const values: Partial<NewFigure> = { updatedAt: new Date() };
   if (patch.label !== undefined) values.label = patch.label;
   if (patch.title !== undefined) values.title = patch.title;
   if (patch.caption !== undefined) values.caption = patch.caption;
@@ -104,8 +114,8 @@ export async function countSnapshotsOfFigure({ figureId, database = db }: { figu
 }
 
 /**
- * Delete a figure and its runs (cascade). Refused with 409 when the figure has a frozen snapshot: snapshots are
- * cited, so their figure stays (the foreign key also refuses it).
+ * Delete a figure and its runs (cascade). Refused with a `conflict` when the figure has a frozen snapshot: snapshots
+ * are cited, so their figure stays (the foreign key also refuses it).
  */
 export async function deleteFigureById({ id, database = db }: { id: string; database?: Db }): Promise<boolean> {
   return database.transaction(async (tx) => {

@@ -1,26 +1,10 @@
-// Queries about invitations: an owner invites an e-mail address into a role; the link carries a random token
-// of which only the SHA-256 is stored. Accepting joins an existing account or creates one, in one transaction.
-import { createHash, randomBytes } from 'node:crypto';
+// Queries about invitations: read and write rows only (links carry a token; only its SHA-256 is stored). The rules
+// (who may accept, expiry, which role the member gets, replacing a pending invitation) live in lib/invitations.
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db } from '@/db';
 import { invitations, manuscripts, memberships, users, type Invitation, type MemberRole } from '@/db/schema';
-import { conflict, forbidden, HttpError, notFound } from '@/lib/http/errors';
-import { addOrRaiseMember } from './members';
-import { createUserWithPassword } from './users';
-
-/** Invitations stay valid for 14 days (common practice for invitation links). */
-export const INVITATION_LIFETIME_MS = 14 * 24 * 60 * 60 * 1000;
-
-/** SHA-256 (hex) of an invitation token: what the database stores. */
-export function hashInvitationToken(token: string): string {
-  return createHash('sha256').update(token).digest('hex');
-}
-
-/** A fresh token: 32 random bytes in base64url (43 characters). */
-export function newInvitationToken(): string {
-  return randomBytes(32).toString('base64url');
-}
+import type { Executor } from './executor';
 
 export interface PendingInvitation {
   id: string;
@@ -31,8 +15,8 @@ export interface PendingInvitation {
   expiresAt: Date;
 }
 
-/** What the invitation page shows before accepting. */
-export interface InvitationDetails {
+/** An invitation as stored, with its manuscript, inviter and whether the invited address has an account. */
+export interface InvitationRow {
   id: string;
   email: string;
   role: MemberRole;
@@ -42,61 +26,56 @@ export interface InvitationDetails {
   invitedByName: string | null;
   expiresAt: Date;
   acceptedAt: Date | null;
-  expired: boolean;
   accountExists: boolean;
 }
 
-/**
- * Invite `email` into `role`. Replaces any pending invitation of the same address to the same manuscript
- * (the old link stops working). Throws 409 when the address already belongs to a member.
- *
- * @returns the stored invitation and the clear-text token (to put in the e-mail only; it is not stored)
- */
-export async function createInvitation({
+/** True when `email` (lower-cased) belongs to a member of the manuscript. */
+export async function isMemberEmail({
   manuscriptId,
   email,
-  role,
-  invitedById,
-  now = new Date(),
+  tx = db,
 }: {
   manuscriptId: string;
   email: string;
-  role: MemberRole;
-  invitedById: string;
-  now?: Date;
-}): Promise<{ invitation: Invitation; token: string }> {
-  const address = email.trim().toLowerCase();
-  return db.transaction(async (tx) => {
-    const [member] = await tx
-      .select({ userId: memberships.userId })
-      .from(memberships)
-      .innerJoin(users, eq(users.id, memberships.userId))
-      .where(and(eq(memberships.manuscriptId, manuscriptId), eq(users.email, address)))
-      .limit(1);
-    if (member) throw conflict('This person is already a member of the manuscript', { email: ['Already a member'] });
-    await tx
-      .delete(invitations)
-      .where(
-        and(eq(invitations.manuscriptId, manuscriptId), eq(invitations.email, address), isNull(invitations.acceptedAt)),
-      );
-    const token = newInvitationToken();
-    const [invitation] = await tx
-      .insert(invitations)
-      .values({
-        manuscriptId,
-        email: address,
-        role,
-        tokenHash: hashInvitationToken(token),
-        invitedById,
-        createdAt: now,
-        expiresAt: new Date(now.getTime() + INVITATION_LIFETIME_MS),
-      })
-      .returning();
-    return { invitation, token };
-  });
+  tx?: Executor;
+}): Promise<boolean> {
+  const [member] = await tx
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.manuscriptId, manuscriptId), eq(users.email, email)))
+    .limit(1);
+  return Boolean(member);
 }
 
-/** Pending (not accepted, not expired) invitations of a manuscript, newest first. */
+/** Delete the not yet accepted invitations of `email` to a manuscript. */
+export async function deletePendingInvitations({
+  manuscriptId,
+  email,
+  tx = db,
+}: {
+  manuscriptId: string;
+  email: string;
+  tx?: Executor;
+}): Promise<void> {
+  await tx
+    .delete(invitations)
+    .where(and(eq(invitations.manuscriptId, manuscriptId), eq(invitations.email, email), isNull(invitations.acceptedAt)));
+}
+
+/** Insert an invitation row. */
+export async function insertInvitation({
+  values,
+  tx = db,
+}: {
+  values: typeof invitations.$inferInsert;
+  tx?: Executor;
+}): Promise<Invitation> {
+  const [invitation] = await tx.insert(invitations).values(values).returning();
+  return invitation;
+}
+
+/** Invitations of a manuscript not accepted and expiring after `now`, newest first. */
 export async function listPendingInvitations({
   manuscriptId,
   now = new Date(),
@@ -121,14 +100,8 @@ export async function listPendingInvitations({
     .orderBy(desc(invitations.createdAt));
 }
 
-/** The invitation behind a token, with what the acceptance page shows; null when the token is unknown. */
-export async function getInvitationByToken({
-  token,
-  now = new Date(),
-}: {
-  token: string;
-  now?: Date;
-}): Promise<InvitationDetails | null> {
+/** The invitation stored under a token hash, with what the acceptance page shows; null when there is none. */
+export async function getInvitationByTokenHash({ tokenHash }: { tokenHash: string }): Promise<InvitationRow | null> {
   const inviter = alias(users, 'inviter');
   const invitee = alias(users, 'invitee');
   const [row] = await db
@@ -148,118 +121,46 @@ export async function getInvitationByToken({
     .innerJoin(manuscripts, eq(manuscripts.id, invitations.manuscriptId))
     .leftJoin(inviter, eq(inviter.id, invitations.invitedById))
     .leftJoin(invitee, eq(invitee.email, invitations.email))
-    .where(eq(invitations.tokenHash, hashInvitationToken(token)))
+    .where(eq(invitations.tokenHash, tokenHash))
     .limit(1);
   if (!row) return null;
   const { inviteeId, ...details } = row;
-  return { ...details, expired: row.expiresAt.getTime() <= now.getTime(), accountExists: inviteeId !== null };
-}
-
-export interface AcceptedInvitation {
-  manuscriptId: string;
-  manuscriptSlug: string;
-  role: MemberRole;
-  userId: string;
-  email: string;
-  accountCreated: boolean;
+  return { ...details, accountExists: inviteeId !== null };
 }
 
 /**
- * Accept an invitation, in one transaction.
- * - `user` given (signed in): its e-mail must be the invited one (403 otherwise); the user joins.
- * - `signUp` given (no session): creates the account with the invited e-mail (409 if one exists) and joins.
- * The membership gets the invited role, or keeps a higher one the person already has.
- * Unknown token: 404. Expired, or already accepted by someone else: 409. Accepting again as the same person is a no-op.
+ * The invitation under a token hash and its manuscript's slug, with the invitation row locked (`FOR UPDATE`) until
+ * the caller's transaction ends; null when there is none.
  */
-export async function acceptInvitation({
-  token,
-  user,
-  signUp,
-  now = new Date(),
+export async function lockInvitationByTokenHash({
+  tokenHash,
+  tx,
 }: {
-  token: string;
-  user?: { id: string; email: string };
-  signUp?: { name: string; passwordHash: string };
-  now?: Date;
-}): Promise<AcceptedInvitation> {
-  return db.transaction(async (tx) => {
-    const [invitation] = await tx
-      .select()
-      .from(invitations)
-      .where(eq(invitations.tokenHash, hashInvitationToken(token)))
-      .for('update');
-    if (!invitation) throw notFound('This invitation does not exist or was replaced by a newer one');
-    const [manuscript] = await tx
-      .select({ id: manuscripts.id, slug: manuscripts.slug })
-      .from(manuscripts)
-      .where(eq(manuscripts.id, invitation.manuscriptId));
-    if (!manuscript) throw notFound('This invitation does not exist or was replaced by a newer one');
+  tokenHash: string;
+  tx: Executor;
+}): Promise<{ invitation: Invitation; manuscriptSlug: string } | null> {
+  const [row] = await tx
+    .select({ invitation: invitations, manuscriptSlug: manuscripts.slug })
+    .from(invitations)
+    .innerJoin(manuscripts, eq(manuscripts.id, invitations.manuscriptId))
+    .where(eq(invitations.tokenHash, tokenHash))
+    .for('update', { of: invitations });
+  return row ?? null;
+}
 
-    if (invitation.acceptedAt) {
-      if (user && invitation.acceptedById === user.id) {
-        const [membership] = await tx
-          .select({ role: memberships.role })
-          .from(memberships)
-          .where(and(eq(memberships.manuscriptId, manuscript.id), eq(memberships.userId, user.id)));
-        if (membership) {
-          return {
-            manuscriptId: manuscript.id,
-            manuscriptSlug: manuscript.slug,
-            role: membership.role,
-            userId: user.id,
-            email: user.email,
-            accountCreated: false,
-          };
-        }
-      }
-      throw conflict('This invitation has already been used');
-    }
-    if (invitation.expiresAt.getTime() <= now.getTime()) {
-      throw conflict('This invitation has expired; ask an owner of the manuscript to invite you again');
-    }
-
-    let userId: string;
-    let accountCreated = false;
-    if (user) {
-      if (user.email.toLowerCase() !== invitation.email) {
-        throw forbidden(`This invitation was sent to ${invitation.email}; sign in with that address to accept it`);
-      }
-      userId = user.id;
-    } else if (signUp) {
-      const created = await createUserWithPassword({
-        tx,
-        email: invitation.email,
-        name: signUp.name,
-        passwordHash: signUp.passwordHash,
-        // Opening the link sent to this address proves the address.
-        emailVerified: now,
-      }).catch((error: unknown) => {
-        if (error instanceof HttpError && error.status === 409) {
-          throw conflict('An account already uses this e-mail address; sign in to accept the invitation');
-        }
-        throw error;
-      });
-      userId = created.id;
-      accountCreated = true;
-    } else {
-      throw new Error('acceptInvitation needs either user or signUp');
-    }
-
-    const role = await addOrRaiseMember({ tx, manuscriptId: manuscript.id, userId, role: invitation.role });
-    await tx
-      .update(invitations)
-      .set({ acceptedAt: now, acceptedById: userId })
-      .where(eq(invitations.id, invitation.id));
-    await tx.update(manuscripts).set({ updatedAt: now }).where(eq(manuscripts.id, manuscript.id));
-    return {
-      manuscriptId: manuscript.id,
-      manuscriptSlug: manuscript.slug,
-      role,
-      userId,
-      email: invitation.email,
-      accountCreated,
-    };
-  });
+/** Record who accepted an invitation and when. */
+export async function markInvitationAccepted({
+  id,
+  userId,
+  at,
+  tx = db,
+}: {
+  id: string;
+  userId: string;
+  at: Date;
+  tx?: Executor;
+}): Promise<void> {
+  await tx.update(invitations).set({ acceptedAt: at, acceptedById: userId }).where(eq(invitations.id, id));
 }
 
 /** Delete one invitation (used when its e-mail could not be sent, so no dead invitation stays pending). */

@@ -3,8 +3,7 @@
 import { and, count, desc, eq, inArray, like, or, sql } from 'drizzle-orm';
 import { db } from '@/db';
 import { manuscripts, memberships, snapshots, type Manuscript, type MemberRole } from '@/db/schema';
-import { conflict, notFound } from '@/lib/http/errors';
-import { slugFromTitle } from '@/lib/validations/common';
+import { conflict, notFound } from '@/lib/domain-error';
 import type { Executor } from './executor';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 
@@ -80,19 +79,20 @@ export async function listAllManuscripts({ userId }: { userId: string }): Promis
 }
 
 /**
- * Create a manuscript with `ownerId` as its first owner. The slug comes from the title and is made unique
- * (`title`, `title-2`, …); a concurrent insert of the same slug is retried.
+ * Create a manuscript with `ownerId` as its first owner. `slug` (the caller derives it from the title) is made
+ * unique (`slug`, `slug-2`, …); a concurrent insert of the same slug is retried.
  */
 export async function createManuscript({
   ownerId,
   title,
+  slug: base,
   abstract = '',
 }: {
   ownerId: string;
   title: string;
+  slug: string;
   abstract?: string;
 }): Promise<Manuscript> {
-  const base = slugFromTitle(title, 'manuscript');
   for (let attempt = 0; attempt < 5; attempt++) {
     try {
       return await db.transaction(async (tx) => {
@@ -137,6 +137,11 @@ export async function updateManuscript({
   return row;
 }
 
+/** Mark a manuscript as changed at `at` (its place in "recently updated" lists). */
+export async function touchManuscript({ id, at = new Date(), tx = db }: { id: string; at?: Date; tx?: Executor }): Promise<void> {
+  await tx.update(manuscripts).set({ updatedAt: at }).where(eq(manuscripts.id, id));
+}
+
 /** Archive (sets archivedAt to now) or restore (clears it). Archiving an archived manuscript keeps its date. */
 export async function setManuscriptArchived({ id, archived }: { id: string; archived: boolean }): Promise<Manuscript> {
   const [row] = await db
@@ -169,7 +174,7 @@ export async function countSnapshotsForManuscripts({ ids }: { ids: string[] }): 
 }
 
 /**
- * Delete a manuscript and everything that cascades from it. Throws 409 while it has a frozen snapshot:
+ * Delete a manuscript and everything that cascades from it. Throws a `conflict` while it has a frozen snapshot:
  * snapshots are cited by others and must stay resolvable.
  */
 export async function deleteManuscriptById({ id }: { id: string }): Promise<void> {

@@ -1,10 +1,9 @@
 // Queries about manuscript members: look-up of one membership, the member list, role changes and removal
-// (never leaving a manuscript without an owner), and joining from an invitation.
+// (never leaving a manuscript without an owner), and the plain reads and writes joining from an invitation needs.
 import { and, asc, eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { manuscripts, memberships, users, type MemberRole, type Membership } from '@/db/schema';
-import { higherRole } from '@/lib/authz/roles';
-import { conflict, notFound } from '@/lib/http/errors';
+import { conflict, notFound } from '@/lib/domain-error';
 import type { Executor } from './executor';
 
 export interface MemberListItem {
@@ -69,7 +68,7 @@ function assertKeepsAnOwner(rows: Membership[], userId: string, nextRole: Member
   }
 }
 
-/** Change a member's role. 404 when not a member; 409 when it would leave no owner. */
+/** Change a member's role. `not-found` when not a member; `conflict` when it would leave no owner. */
 export async function updateMemberRole({
   manuscriptId,
   userId,
@@ -92,7 +91,7 @@ export async function updateMemberRole({
   });
 }
 
-/** Remove a member. 404 when not a member; 409 when it would leave no owner. */
+/** Remove a member. `not-found` when not a member; `conflict` when it would leave no owner. */
 export async function removeMember({ manuscriptId, userId }: { manuscriptId: string; userId: string }): Promise<void> {
   await db.transaction(async (tx) => {
     const rows = await lockMemberships(tx, manuscriptId);
@@ -103,36 +102,38 @@ export async function removeMember({ manuscriptId, userId }: { manuscriptId: str
   });
 }
 
-/**
- * Add `userId` with `role`, or raise an existing membership to `role` if that gives more rights
- * (an invitation never lowers a role). Runs inside the caller's transaction.
- */
-export async function addOrRaiseMember({
+/** One membership locked (`FOR UPDATE`) until the caller's transaction ends, or null when not a member. */
+export async function lockMembership({
   tx,
   manuscriptId,
   userId,
-  role,
 }: {
   tx: Executor;
   manuscriptId: string;
   userId: string;
-  role: MemberRole;
-}): Promise<MemberRole> {
-  const [existing] = await tx
+}): Promise<Membership | null> {
+  const [row] = await tx
     .select()
     .from(memberships)
     .where(and(eq(memberships.manuscriptId, manuscriptId), eq(memberships.userId, userId)))
     .for('update');
-  if (!existing) {
-    await tx.insert(memberships).values({ manuscriptId, userId, role });
-    return role;
-  }
-  const next = higherRole(existing.role, role);
-  if (next !== existing.role) {
-    await tx
-      .update(memberships)
-      .set({ role: next })
-      .where(and(eq(memberships.manuscriptId, manuscriptId), eq(memberships.userId, userId)));
-  }
-  return next;
+  return row ?? null;
+}
+
+/** Store `userId`'s role in a manuscript: inserts the membership, or sets the role of the existing one. */
+export async function saveMembership({
+  tx = db,
+  manuscriptId,
+  userId,
+  role,
+}: {
+  tx?: Executor;
+  manuscriptId: string;
+  userId: string;
+  role: MemberRole;
+}): Promise<void> {
+  await tx
+    .insert(memberships)
+    .values({ manuscriptId, userId, role })
+    .onConflictDoUpdate({ target: [memberships.manuscriptId, memberships.userId], set: { role } });
 }

@@ -3,7 +3,7 @@
 import { and, asc, desc, eq, inArray, like, or } from 'drizzle-orm';
 import { db, type Db } from '@/db';
 import { noteRevisions, notes, users, type Note, type NoteRevision } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
+import { conflict } from '@/lib/domain-error';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 
 /** The notes of a manuscript in reading order (position, then title). */
@@ -43,7 +43,7 @@ async function freeSlug(database: Db, manuscriptId: string, base: string): Promi
 }
 
 /**
- * Create a note with its first revision. With `slugIsExplicit` a taken slug is a 409; otherwise a free variant
+ * Create a note with its first revision. With `slugIsExplicit` a taken slug is a `conflict`; otherwise a free variant
  * (`slug-2`, …) is chosen. The note goes after the manuscript's other notes.
  */
 export async function createNote({
@@ -84,7 +84,7 @@ export async function createNote({
 /**
  * Save a note: bump its revision and record the new revision (who, when, what) in ONE transaction.
  * An identical title and source make no new revision. With `baseRevision`, a note changed since that revision
- * is a 409 (someone else saved first) rather than a silent overwrite.
+ * is a `conflict` (someone else saved first) rather than a silent overwrite.
  *
  * @returns the note after saving, or null when it does not exist
  */

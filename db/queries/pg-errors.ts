@@ -1,5 +1,5 @@
 // Recognise PostgreSQL error codes through Drizzle's error wrapper (the driver error sits in `cause`).
-// Used by queries that turn a constraint violation into a clear 409.
+// Used by queries that turn a constraint violation into a clear `conflict`.
 /** SQLSTATE 23505: a unique constraint was violated. */
 export const UNIQUE_VIOLATION = '23505';
 

@@ -3,7 +3,7 @@
 import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { users, type User } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
+import { conflict } from '@/lib/domain-error';
 import type { Executor } from './executor';
 import { pgErrorCode, UNIQUE_VIOLATION } from './pg-errors';
 
@@ -32,7 +32,7 @@ export async function getUserByEmail({ email }: { email: string }): Promise<User
 }
 
 /**
- * Create a password account. Throws 409 when the address is taken.
+ * Create a password account. Throws a `conflict` when the address is taken.
  *
  * @param emailVerified - when the address was proven (an invitation link opened from the mailbox proves it)
  */

@@ -1,9 +1,9 @@
 // THE authorisation helper for everything scoped to one manuscript: every route handler, server action and page
-// asks it, with the action it wants to perform, and gets the manuscript and the caller's effective role, or an HttpError.
+// asks it, with the action it wants to perform, and gets the manuscript and the caller's effective role, or a DomainError.
 import type { Manuscript, MemberRole } from '@/db/schema';
 import { getManuscriptById, getManuscriptBySlug } from '@/db/queries/manuscripts';
 import { getMembership } from '@/db/queries/members';
-import { conflict, forbidden, notFound, unauthorized } from '@/lib/http/errors';
+import { conflict, forbidden, notFound, unauthenticated } from '@/lib/domain-error';
 import { roleAtLeast } from './roles';
 
 /**
@@ -57,11 +57,11 @@ export function allowedActions(role: MemberRole | null, archived: boolean): Reco
 /**
  * Decide a manuscript-scoped request.
  *
- * - no caller: throws 401;
- * - manuscript missing, or the caller is neither a member nor a site admin: throws 404 (the same answer,
+ * - no caller: throws `unauthenticated`;
+ * - manuscript missing, or the caller is neither a member nor a site admin: throws `not-found` (the same answer,
  *   so that outsiders cannot learn which manuscripts exist);
- * - member whose role is below the action's minimum: throws 403;
- * - content-changing action on an archived manuscript: throws 409.
+ * - member whose role is below the action's minimum: throws `forbidden`;
+ * - content-changing action on an archived manuscript: throws `conflict`.
  *
  * Site admins get the effective role 'owner' on every manuscript, or their own role if they are an owner already.
  *
@@ -79,7 +79,7 @@ export async function authorizeManuscript({
   slug?: string;
   need: ManuscriptAction;
 }): Promise<ManuscriptAccess> {
-  if (!user) throw unauthorized();
+  if (!user) throw unauthenticated();
   const manuscript = manuscriptId
     ? await getManuscriptById({ id: manuscriptId })
     : slug

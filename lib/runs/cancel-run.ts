@@ -4,13 +4,13 @@ import type { Db } from '@/db';
 import { db as defaultDb } from '@/db';
 import { cancelRunById } from '@/db/queries/runs';
 import type { Run } from '@/db/schema';
-import { conflict } from '@/lib/http/errors';
+import { conflict } from '@/lib/domain-error';
 import { cancelRunJob } from '@/lib/jobs/queue';
 
 /**
  * Cancel a run.
  *
- * @throws HttpError 409 when the run has already finished (succeeded, failed or cancelled)
+ * @throws DomainError `conflict` when the run has already finished (succeeded, failed or cancelled)
  * @returns the cancelled run
  * @example
  * const run = await cancelRun({ run });

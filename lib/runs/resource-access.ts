@@ -1,5 +1,5 @@
 // Authorisation of figure, run, snapshot and note ids: load the row, then ask the one manuscript helper about its
-// manuscript. An unknown id and a foreign one give the same 404, so ids of other groups' work reveal nothing.
+// manuscript. An unknown id and a foreign one give the same not-found, so ids of other groups' work reveal nothing.
 import { getFigureById } from '@/db/queries/figures';
 import { getNoteById } from '@/db/queries/notes';
 import { getRunById } from '@/db/queries/runs';
@@ -7,16 +7,16 @@ import { getSnapshotById } from '@/db/queries/snapshots';
 import type { Figure, Note, Run, Snapshot } from '@/db/schema';
 import type { CurrentUser } from '@/lib/auth/session';
 import { authorizeManuscript, type ManuscriptAccess, type ManuscriptAction } from '@/lib/authz/manuscript-access';
-import { HttpError, notFound } from '@/lib/http/errors';
+import { isDomainError, notFound, unauthenticated } from '@/lib/domain-error';
 
 type Caller = Pick<CurrentUser, 'id' | 'isAdmin'> | null;
 
-/** Ask the manuscript helper, answering its 404 with the resource's own 404 message. */
+/** Ask the manuscript helper, answering its not-found with the resource's own not-found message. */
 async function authorizeVia(user: Caller, manuscriptId: string, need: ManuscriptAction, missing: string): Promise<ManuscriptAccess> {
   try {
     return await authorizeManuscript({ user, manuscriptId, need });
   } catch (error) {
-    if (error instanceof HttpError && error.status === 404) throw notFound(missing);
+    if (isDomainError(error, 'not-found')) throw notFound(missing);
     throw error;
   }
 }
@@ -24,7 +24,8 @@ async function authorizeVia(user: Caller, manuscriptId: string, need: Manuscript
 /**
  * A figure and the caller's access to its manuscript.
  *
- * @throws HttpError 401 without a session, 404 for an unknown or foreign figure, 403 when the role is too low
+ * @throws DomainError `unauthenticated` without a session, `not-found` for an unknown or foreign figure, `forbidden`
+ *   when the role is too low
  */
 export async function authorizeFigure({
   user,
@@ -35,13 +36,13 @@ export async function authorizeFigure({
   figureId: string;
   need: ManuscriptAction;
 }): Promise<{ figure: Figure; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const figure = await getFigureById({ id: figureId });
   if (!figure) throw notFound('Figure not found');
   return { figure, access: await authorizeVia(user, figure.manuscriptId, need, 'Figure not found') };
 }
 
-/** A run, its figure and the caller's access (same errors as {@link authorizeFigure}, 404 "Run not found"). */
+/** A run, its figure and the caller's access (same errors as {@link authorizeFigure}, not-found "Run not found"). */
 export async function authorizeRun({
   user,
   runId,
@@ -51,14 +52,14 @@ export async function authorizeRun({
   runId: string;
   need: ManuscriptAction;
 }): Promise<{ run: Run; figure: Figure; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const run = await getRunById({ id: runId });
   const figure = run ? await getFigureById({ id: run.figureId }) : null;
   if (!run || !figure) throw notFound('Run not found');
   return { run, figure, access: await authorizeVia(user, figure.manuscriptId, need, 'Run not found') };
 }
 
-/** A snapshot and the caller's access (404 "Snapshot not found" for unknown or foreign ids). */
+/** A snapshot and the caller's access (not-found "Snapshot not found" for unknown or foreign ids). */
 export async function authorizeSnapshot({
   user,
   snapshotId,
@@ -68,13 +69,13 @@ export async function authorizeSnapshot({
   snapshotId: string;
   need: ManuscriptAction;
 }): Promise<{ snapshot: Snapshot; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const snapshot = await getSnapshotById({ id: snapshotId });
   if (!snapshot) throw notFound('Snapshot not found');
   return { snapshot, access: await authorizeVia(user, snapshot.manuscriptId, need, 'Snapshot not found') };
 }
 
-/** A note and the caller's access (404 "Note not found" for unknown or foreign ids). */
+/** A note and the caller's access (not-found "Note not found" for unknown or foreign ids). */
 export async function authorizeNote({
   user,
   noteId,
@@ -84,7 +85,7 @@ export async function authorizeNote({
   noteId: string;
   need: ManuscriptAction;
 }): Promise<{ note: Note; access: ManuscriptAccess }> {
-  if (!user) throw new HttpError(401, 'Sign in to continue');
+  if (!user) throw unauthenticated();
   const note = await getNoteById({ id: noteId });
   if (!note) throw notFound('Note not found');
   return { note, access: await authorizeVia(user, note.manuscriptId, need, 'Note not found') };

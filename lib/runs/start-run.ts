@@ -5,23 +5,14 @@ import { db as defaultDb } from '@/db';
 import { getResultByInputHash } from '@/db/queries/results';
 import { failRun, insertRun, setRunJobId } from '@/db/queries/runs';
 import type { Figure, Run } from '@/db/schema';
-import { HttpError } from '@/lib/http/errors';
+import { conflict, invalid, unavailable } from '@/lib/domain-error';
 import { figureKind, isFigureKind } from '@/lib/figure-kinds/registry';
 import { enqueueRun } from '@/lib/jobs/queue';
 import { SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
+import { fieldMessages } from '@/lib/validation-fields';
 import { inputHash } from './input-hash';
-
-/** Per-field messages of a SpecError, keyed like the figure form's fields (`params.well.disk.radius`). */
-export function specErrorFields(error: SpecError): Record<string, string[]> {
-  const fields: Record<string, string[]> = {};
-  for (const issue of error.issues) {
-    const key = issue.path ? `params.${issue.path}` : 'params';
-    (fields[key] ??= []).push(issue.message);
-  }
-  return fields;
-}
 
 export interface StartedRun {
   run: Run;
@@ -34,7 +25,8 @@ export interface StartedRun {
  *
  * - A figure whose kind has no solver task (uploaded data) is refused with a 409: there is nothing to compute.
  * - Parameters are validated by the solver's schema (the same as the CLI and the forms); invalid ones throw a
- *   400 HttpError with per-field messages and nothing is written.
+ *   DomainError `invalid` with per-field messages keyed like the figure form's fields (`params.grid.h`), and nothing
+ *   is written.
  * - Cache: when a result exists for the same input hash (parameters + solver version), the run is created already
  *   succeeded with `fromCache` and no job.
  * - Otherwise the run is created 'queued' and put on the queue; its job id is recorded.
@@ -56,14 +48,14 @@ export async function startRun({
   enqueue?: ((runId: string) => Promise<string | null>) | null;
 }): Promise<StartedRun> {
   if (isFigureKind(figure.kind) && figureKind(figure.kind).task === null) {
-    throw new HttpError(409, `Figures of kind "${figure.kind}" are not computed: their data is uploaded, so there is nothing to run`);
+    throw conflict(`Figures of kind "${figure.kind}" are not computed: their data is uploaded, so there is nothing to run`);
   }
   let spec;
   try {
     spec = parseTaskSpec(figure.params);
   } catch (error) {
     if (error instanceof SpecError) {
-      throw new HttpError(400, "The figure's parameters are not valid", specErrorFields(error));
+      throw invalid("The figure's parameters are not valid", fieldMessages(error.issues, { prefix: 'params' }));
     }
     throw error;
   }
@@ -101,6 +93,6 @@ export async function startRun({
   } catch (error) {
     await failRun({ id: run.id, error: 'The run could not be queued; try again in a moment', database });
     console.error('[runs] enqueue failed', error);
-    throw new HttpError(503, 'The run queue is not available; try again in a moment');
+    throw unavailable('The run queue is not available; try again in a moment');
   }
 }

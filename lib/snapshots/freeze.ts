@@ -5,8 +5,8 @@ import type { Db } from '@/db';
 import { db as defaultDb } from '@/db';
 import { pgErrorCode, UNIQUE_VIOLATION } from '@/db/queries/pg-errors';
 import { figures, results, runs, snapshots, type Snapshot } from '@/db/schema';
-import { conflict, notFound } from '@/lib/http/errors';
 import { buildCommit } from '@/lib/build-info';
+import { conflict, notFound } from '@/lib/domain-error';
 
 /**
  * Freeze a succeeded run as the next snapshot version of its figure.
@@ -15,7 +15,7 @@ import { buildCommit } from '@/lib/build-info';
  * figure get v1, v2, … without gaps or duplicates (the unique index on (figure, version) is the backstop). The
  * snapshot copies the figure's label, caption and view spec as they are now, and the run's parameters.
  *
- * @throws HttpError 404 when the run does not exist, 409 when it has not succeeded or is already frozen
+ * @throws DomainError `not-found` when the run does not exist, `conflict` when it has not succeeded or is already frozen
  * @example
  * const snapshot = await freezeRun({ runId, user }); // snapshot.version === 1
  */

@@ -1,20 +1,29 @@
 // Recompute a snapshot bundle with this solver and compare: the recomputed result hash must equal the recorded one,
 // and so must the hash of the bundle's own data (a bundle whose data was edited does not verify).
 import { diffJson, summarizeDiff, type JsonDiff } from '@/lib/canonical-diff';
+import { DomainError } from '@/lib/domain-error';
 import { resultHash } from '@/lib/physics/canonical';
 import { SpecError } from '@/lib/physics/errors';
 import { runTask } from '@/lib/physics/run-task';
 import { parseTaskSpec, zodIssuesToSpecIssues } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { toStoredForm } from '@/lib/runs/stored-form';
+import { fieldMessages } from '@/lib/validation-fields';
 import { bundleSchema, type SnapshotBundle } from './bundle';
 
-/** The bundle is not readable as a snapshot bundle (wrong format, missing fields, invalid parameters). */
-export class BundleError extends Error {
+/**
+ * The bundle is not readable as a snapshot bundle (wrong format, missing fields, invalid parameters): a domain error
+ * `invalid` with per-field messages, that also keeps the list of issues for the command line.
+ */
+export class BundleError extends DomainError {
   readonly issues: { path: string; message: string }[];
 
   constructor(issues: { path: string; message: string }[]) {
-    super(issues.map((issue) => (issue.path ? `${issue.path}: ${issue.message}` : issue.message)).join('\n'));
+    super(
+      'invalid',
+      issues.map((issue) => (issue.path ? `${issue.path}: ${issue.message}` : issue.message)).join('\n'),
+      fieldMessages(issues),
+    );
     this.name = 'BundleError';
     this.issues = issues;
   }

@@ -102,7 +102,7 @@ describe('result cache', () => {
     const figure = await createTestFigure(world, await freshSpectrum(4));
     const bad = { ...SMALL_SPECTRUM, grid: { h: -1 } };
     await expect(startRun({ figure: { ...figure, params: bad }, user: world.user, enqueue: null })).rejects.toMatchObject({
-      status: 400,
+      code: 'invalid',
       fields: { 'params.grid.h': [expect.any(String)] },
     });
   });

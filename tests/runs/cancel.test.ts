@@ -24,7 +24,7 @@ describe('cancellation', () => {
     const outcome = await executeRun(run.id);
     expect(outcome).toMatchObject({ status: 'skipped' });
     expect((await getRunById({ id: run.id }))?.status).toBe('cancelled');
-    await expect(cancelRun({ run })).rejects.toMatchObject({ status: 409 });
+    await expect(cancelRun({ run })).rejects.toMatchObject({ code: 'conflict' });
   });
 
   it('stops a running computation and keeps no result for it', async () => {
@@ -52,6 +52,6 @@ describe('cancellation', () => {
     const figure = await createTestFigure(world, { ...SMALL_SPECTRUM, levels: 2 });
     const { run, fromCache } = await startRun({ figure, user: world.user, enqueue: null });
     if (!fromCache) await executeRun(run.id);
-    await expect(cancelRun({ run })).rejects.toMatchObject({ status: 409 });
+    await expect(cancelRun({ run })).rejects.toMatchObject({ code: 'conflict' });
   });
 });

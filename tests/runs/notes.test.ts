@@ -48,7 +48,7 @@ describe('notes and revisions', () => {
     const note = await createNote({ manuscriptId: world.manuscript.id, title: 'Gap map', slug: 'gap-map', source: 'a', userId: world.user.id });
     await saveNote({ noteId: note.id, title: 'Gap map', source: 'b', user: world.user, baseRevision: 1 });
     await expect(saveNote({ noteId: note.id, title: 'Gap map', source: 'c', user: world.user, baseRevision: 1 })).rejects.toMatchObject({
-      status: 409,
+      code: 'conflict',
     });
     const history = await getNoteRevisions({ noteId: note.id });
     expect(history.map((r) => r.number)).toEqual([2, 1]);
@@ -61,7 +61,7 @@ describe('notes and revisions', () => {
     const b = await createNote({ ...base, slug: 'loop-phase' });
     expect([a.slug, b.slug]).toEqual(['loop-phase', 'loop-phase-2']);
     expect(b.position).toBe(1);
-    await expect(createNote({ ...base, slug: 'loop-phase', slugIsExplicit: true })).rejects.toMatchObject({ status: 409 });
+    await expect(createNote({ ...base, slug: 'loop-phase', slugIsExplicit: true })).rejects.toMatchObject({ code: 'conflict' });
     expect((await listNotesByManuscript({ manuscriptId: world.manuscript.id })).map((n) => n.slug)).toEqual([
       'loop-phase',
       'loop-phase-2',

@@ -82,7 +82,7 @@ describe('freezing', () => {
         values: { figureId: figure.id, params: parseTaskSpec(figure.params), inputHash: '0'.repeat(64), solverVersion: 'test', status },
       });
       await expect(freezeRun({ runId: unfinished.id, user: world.user })).rejects.toMatchObject({
-        status: 409,
+        code: 'conflict',
         message: expect.stringContaining(status),
       });
     }
@@ -91,16 +91,16 @@ describe('freezing', () => {
     const snapshot = await freezeRun({ runId: run.id, user: world.user });
     expect(snapshot.version).toBe(6);
     await expect(freezeRun({ runId: run.id, user: world.user })).rejects.toMatchObject({
-      status: 409,
+      code: 'conflict',
       message: expect.stringContaining('v6'),
     });
     await expect(freezeRun({ runId: '00000000-0000-4000-8000-000000000000', user: world.user })).rejects.toMatchObject({
-      status: 404,
+      code: 'not-found',
     });
   });
 
   it('keeps a figure that has snapshots (delete answers 409)', async () => {
-    await expect(deleteFigureById({ id: figure.id })).rejects.toMatchObject({ status: 409 });
+    await expect(deleteFigureById({ id: figure.id })).rejects.toMatchObject({ code: 'conflict' });
   });
 });
 

@@ -62,7 +62,7 @@ describe('worker killed during a run', () => {
     expect(stored[0].n).toBe(0);
     const frozen = await db.select({ n: sql<number>`count(*)::int` }).from(snapshots).where(eq(snapshots.figureId, figure.id));
     expect(frozen[0].n).toBe(0);
-    await expect(freezeRun({ runId: run.id, user: world.user })).rejects.toMatchObject({ status: 409 });
+    await expect(freezeRun({ runId: run.id, user: world.user })).rejects.toMatchObject({ code: 'conflict' });
 
     // A new worker finds the lost run, pg-boss retries the job, and the run completes.
     const second = startWorker(queue);

@@ -8,7 +8,7 @@ import {
   type ManuscriptAccess,
   type ManuscriptAction,
 } from '@/lib/authz/manuscript-access';
-import { HttpError } from '@/lib/http/errors';
+import { isDomainError } from '@/lib/domain-error';
 
 export interface PageAccess extends ManuscriptAccess {
   user: CurrentUser;
@@ -41,8 +41,8 @@ export async function requireManuscriptPage({
     const access = await authorizeManuscript({ user, slug, need });
     return { ...access, user, can: allowedActions(access.role, access.manuscript.archivedAt !== null) };
   } catch (error) {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    if (error instanceof HttpError && (error.status === 403 || error.status === 409) && deniedRedirect) redirect(deniedRedirect);
+    if (isDomainError(error, 'not-found')) notFound();
+    if ((isDomainError(error, 'forbidden') || isDomainError(error, 'conflict')) && deniedRedirect) redirect(deniedRedirect);
     throw error;
   }
 }

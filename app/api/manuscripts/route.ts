@@ -1,8 +1,9 @@
 // GET: the caller's manuscripts with their role (site admins: ?scope=all for every manuscript).
 // POST: create a manuscript with the caller as owner (201).
 import { createManuscript, listAllManuscripts, listManuscriptsForUser } from '@/db/queries/manuscripts';
-import { forbidden } from '@/lib/http/errors';
+import { forbidden } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
+import { slugFromTitle } from '@/lib/validations/common';
 import { createManuscriptSchema, manuscriptListQuerySchema } from '@/lib/validations/manuscript';
 
 export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, query }) => {
@@ -14,6 +15,11 @@ export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, qu
 });
 
 export const POST = route({ body: createManuscriptSchema, status: 201 }, async ({ user, body }) => {
-  const manuscript = await createManuscript({ ownerId: user.id, title: body.title, abstract: body.abstract });
+  const manuscript = await createManuscript({
+    ownerId: user.id,
+    title: body.title,
+    slug: slugFromTitle(body.title, 'manuscript'),
+    abstract: body.abstract,
+  });
   return { manuscript };
 });

@@ -3,9 +3,9 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import type { ReactNode } from 'react';
-import { getInvitationByToken } from '@/db/queries/invitations';
 import { getCurrentUser } from '@/lib/auth/session';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/authz/roles';
+import { getInvitationByToken } from '@/lib/invitations/get-invitation';
 import { invitationTokenSchema } from '@/lib/validations/invitation';
 import { RoleBadge } from '../../_components/badges';
 import { ButtonLink } from '../../_components/button';

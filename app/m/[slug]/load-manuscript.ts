@@ -5,7 +5,7 @@ import { countSnapshotsForManuscript } from '@/db/queries/manuscripts';
 import type { ManuscriptDetailJson } from '@/lib/api-types';
 import { getCurrentUser, type CurrentUser } from '@/lib/auth/session';
 import { allowedActions, authorizeManuscript } from '@/lib/authz/manuscript-access';
-import { HttpError } from '@/lib/http/errors';
+import { isDomainError } from '@/lib/domain-error';
 
 export async function loadManuscriptPage(slug: string): Promise<{ user: CurrentUser; detail: ManuscriptDetailJson }> {
   const user = await getCurrentUser();
@@ -35,7 +35,7 @@ export async function loadManuscriptPage(slug: string): Promise<{ user: CurrentU
       },
     };
   } catch (error) {
-    if (error instanceof HttpError && error.status === 404) notFound();
+    if (isDomainError(error, 'not-found')) notFound();
     throw error;
   }
 }

@@ -7,7 +7,7 @@ import { getResultById } from '@/db/queries/results';
 import { getSnapshotContext, listSnapshotsByFigure } from '@/db/queries/snapshots';
 import { getCurrentUser } from '@/lib/auth/session';
 import { latexFigureBlock, snapshotBibtex, snapshotCitation, type SnapshotCitationInput } from '@/lib/cite/citation';
-import { HttpError } from '@/lib/http/errors';
+import { isDomainError } from '@/lib/domain-error';
 import { authorizeSnapshot } from '@/lib/runs/resource-access';
 
 export interface SnapshotPageData {
@@ -57,7 +57,7 @@ export async function loadSnapshotPage({ snapshotId }: { snapshotId: string }): 
   try {
     await authorizeSnapshot({ user, snapshotId, need: 'read' });
   } catch (error) {
-    if (error instanceof HttpError && error.status === 404) notFound();
+    if (isDomainError(error, 'not-found')) notFound();
     throw error;
   }
   const context = await getSnapshotContext({ id: snapshotId });

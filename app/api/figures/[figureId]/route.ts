@@ -3,7 +3,7 @@
 import { deleteFigureById, updateFigure } from '@/db/queries/figures';
 import { getLatestRun } from '@/db/queries/runs';
 import { listSnapshotsByFigure } from '@/db/queries/snapshots';
-import { notFound } from '@/lib/http/errors';
+import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeFigure } from '@/lib/runs/resource-access';
 import { figureParamsSchema, updateFigureSchema } from '@/lib/validations/figure';

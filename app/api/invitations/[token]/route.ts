@@ -1,9 +1,11 @@
 // An invitation link: GET shows what it offers (the token is the secret, no session needed);
 // POST accepts it, signed in with the invited address (empty body) or by signing up with name + password.
-import { acceptInvitation, getInvitationByToken } from '@/db/queries/invitations';
 import { hashPassword } from '@/lib/auth/password';
-import { notFound, zodFieldErrors, HttpError } from '@/lib/http/errors';
+import { invalid, notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
+import { acceptInvitation } from '@/lib/invitations/accept-invitation';
+import { getInvitationByToken } from '@/lib/invitations/get-invitation';
+import { fieldMessages } from '@/lib/validation-fields';
 import {
   acceptInvitationSchema,
   invitationParamsSchema,
@@ -22,7 +24,7 @@ export const POST = route(
     if (user) return { accepted: await acceptInvitation({ token: params.token, user }) };
     const signUp = signUpFromInvitationSchema.safeParse(body);
     if (!signUp.success) {
-      throw new HttpError(400, 'Enter your name and a password to create your account', zodFieldErrors(signUp.error));
+      throw invalid('Enter your name and a password to create your account', fieldMessages(signUp.error.issues));
     }
     const passwordHash = await hashPassword(signUp.data.password);
     const accepted = await acceptInvitation({ token: params.token, signUp: { name: signUp.data.name, passwordHash } });

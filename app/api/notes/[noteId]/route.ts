@@ -1,11 +1,11 @@
 // GET /api/notes/[noteId]: a figure note with its MDX source (readers). PUT: save a new revision (authors); MDX the
 // safety gate refuses is a 400 naming the line and nothing is saved; a stale baseRevision is a 409.
 import { saveNote } from '@/db/queries/notes';
-import { notFound } from '@/lib/http/errors';
+import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { checkNoteSource } from '@/lib/mdx/check-note';
 import { authorizeNote } from '@/lib/runs/resource-access';
-import { unsafeNoteResponse } from '@/lib/runs/unsafe-note-response';
+import { unsafeNoteResponse } from '@/lib/http/unsafe-note-response';
 import { noteParamsSchema, saveNoteSchema } from '@/lib/validations/note';
 
 export const runtime = 'nodejs';

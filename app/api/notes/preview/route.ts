@@ -8,7 +8,7 @@ import { authorizeManuscript } from '@/lib/authz/manuscript-access';
 import { route } from '@/lib/http/handler';
 import { checkNoteSource } from '@/lib/mdx/check-note';
 import { renderableNote } from '@/lib/mdx/compile-note';
-import { unsafeNoteResponse } from '@/lib/runs/unsafe-note-response';
+import { unsafeNoteResponse } from '@/lib/http/unsafe-note-response';
 import { notePreviewSchema } from './schema';
 
 export const runtime = 'nodejs';

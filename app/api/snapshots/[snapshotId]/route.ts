@@ -2,7 +2,7 @@
 // (readers); the comparison page fetches two of these and draws them together.
 import { getResultById } from '@/db/queries/results';
 import { getSnapshotContext } from '@/db/queries/snapshots';
-import { notFound } from '@/lib/http/errors';
+import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeSnapshot } from '@/lib/runs/resource-access';
 import { snapshotParamsSchema } from '@/lib/validations/figure';

@@ -1,10 +1,11 @@
 // GET: the members of a manuscript with their roles (any member). POST: an owner invites an e-mail address
 // into a role (201); the invitation e-mail carries the acceptance link.
-import { createInvitation, deleteInvitationById, INVITATION_LIFETIME_MS } from '@/db/queries/invitations';
+import { deleteInvitationById } from '@/db/queries/invitations';
 import { listMembers } from '@/db/queries/members';
+import { upstreamFailed } from '@/lib/domain-error';
+import { createInvitation, INVITATION_LIFETIME_MS } from '@/lib/invitations/create-invitation';
 import { invitationMail } from '@/lib/invitations/invitation-mail';
 import { appUrl } from '@/lib/http/app-url';
-import { HttpError } from '@/lib/http/errors';
 import { route } from '@/lib/http/handler';
 import { sendMail } from '@/lib/mail/send-mail';
 import { createInvitationSchema } from '@/lib/validations/invitation';
@@ -35,7 +36,7 @@ export const POST = route(
     } catch (error) {
       console.error(error);
       await deleteInvitationById({ id: invitation.id });
-      throw new HttpError(502, 'The invitation e-mail could not be sent; try again in a moment');
+      throw upstreamFailed('The invitation e-mail could not be sent; try again in a moment');
     }
     const { id, email, role, createdAt, expiresAt } = invitation;
     return { invitation: { id, email, role, createdAt, expiresAt } };

@@ -3,7 +3,7 @@
 import { createNote, listNotesByManuscript } from '@/db/queries/notes';
 import { route } from '@/lib/http/handler';
 import { checkNoteSource } from '@/lib/mdx/check-note';
-import { unsafeNoteResponse } from '@/lib/runs/unsafe-note-response';
+import { unsafeNoteResponse } from '@/lib/http/unsafe-note-response';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
 import { createNoteSchema, slugify } from '@/lib/validations/note';
 

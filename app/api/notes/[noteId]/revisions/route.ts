@@ -1,7 +1,7 @@
 // GET /api/notes/[noteId]/revisions: a note's history, newest first (who, when, size). With ?from=&to= the two
 // revisions in full, for a diff.
 import { getNoteRevisions, getRevisionPair } from '@/db/queries/notes';
-import { notFound } from '@/lib/http/errors';
+import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeNote } from '@/lib/runs/resource-access';
 import { noteParamsSchema, revisionsQuerySchema } from '@/lib/validations/note';

@@ -2,7 +2,7 @@
 // (`npm run -s reproduce -- <file>` verifies it), or with ?format=csv its data as CSV.
 import { getResultById } from '@/db/queries/results';
 import { getSnapshotContext } from '@/db/queries/snapshots';
-import { notFound } from '@/lib/http/errors';
+import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeSnapshot } from '@/lib/runs/resource-access';
 import { bundleFileName, snapshotBundle, snapshotBundleCsv } from '@/lib/snapshots/bundle';

@@ -5,6 +5,7 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { ApiError, sendJson } from '@/lib/fetcher';
 import type { NoteProblem } from '@/lib/mdx/check-note';
+import { fieldMessages } from '@/lib/validation-fields';
 import { saveNoteSchema } from '@/lib/validations/note';
 import { Button, ButtonLink } from '../../../../../_components/button';
 import { Card } from '../../../../../_components/card';
@@ -48,9 +49,7 @@ export function NoteEditor({ note, manuscript, figures }: NoteEditorProps) {
     setSavedMessage(null);
     const parsed = saveNoteSchema.safeParse({ title, source, baseRevision: saved.revision });
     if (!parsed.success) {
-      const fields: Record<string, string[]> = {};
-      for (const issue of parsed.error.issues) (fields[String(issue.path[0] ?? '_')] ??= []).push(issue.message);
-      setSaveProblem({ message: 'Some fields are not valid', problems: [], fields });
+      setSaveProblem({ message: 'Some fields are not valid', problems: [], fields: fieldMessages(parsed.error.issues) });
       return;
     }
     setSaving(true);

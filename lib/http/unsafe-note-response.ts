@@ -1,5 +1,5 @@
-// The 400 answer for a note the safe-MDX gate refuses: the first problem as the message (it names its line), every
-// problem with line and column, and the messages under `fields.source` like any other per-field error.
+// The 400 answer (an edge response, like lib/http/errors.ts) for a note the safe-MDX gate refuses: the first problem
+// as the message (it names its line), every problem with line and column, and the messages under `fields.source`.
 import type { NoteProblem } from '@/lib/mdx/check-note';
 
 /** 400 `{ error, lines, fields: { source } }` for refused MDX. */
