@@ -4,13 +4,14 @@ import { createManuscript, listAllManuscripts, listManuscriptsForUser } from '@/
 import { forbidden } from '@/lib/http/errors';
 import { route } from '@/lib/http/handler';
 import { createManuscriptSchema, manuscriptListQuerySchema } from '@/lib/validations/manuscript';
+import type { ManuscriptsBody } from '@/lib/api-types';
 
 export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, query }) => {
   if (query.scope === 'all') {
     if (!user.isAdmin) throw forbidden('Only site admins may list every manuscript');
-    return { manuscripts: await listAllManuscripts({ userId: user.id }) };
+    return { manuscripts: await listAllManuscripts({ userId: user.id }) } satisfies ManuscriptsBody;
   }
-  return { manuscripts: await listManuscriptsForUser({ userId: user.id }) };
+  return { manuscripts: await listManuscriptsForUser({ userId: user.id }) } satisfies ManuscriptsBody;
 });
 
 export const POST = route({ body: createManuscriptSchema, status: 201 }, async ({ user, body }) => {

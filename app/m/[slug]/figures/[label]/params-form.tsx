@@ -6,7 +6,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { forwardRef, useEffect, useImperativeHandle, useState } from 'react';
 import { FormProvider, useForm, useWatch, type FieldValues, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
-import { updateFigure } from '@/hooks/use-figure';
+import { updateFigure } from '@/app/_hooks/use-figure';
 import { ApiError } from '@/lib/fetcher';
 import {
   convergenceSpecSchema,
