@@ -4,7 +4,7 @@
 
 import Link from 'next/link';
 import type { MemberRole } from '@/db/schema';
-import { useManuscripts } from '@/hooks/use-manuscripts';
+import { useManuscripts } from '@/app/_hooks/use-manuscripts';
 import type { ManuscriptListItemJson } from '@/lib/api-types';
 import { ArchivedBadge, RoleBadge, StatusBadge } from '../_components/badges';
 import { ButtonLink } from '../_components/button';

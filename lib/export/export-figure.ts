@@ -1,39 +1,14 @@
 // One call for the export routes: a figure's chart (kind default + stored view spec, chosen units) as SVG, PNG or PDF at a
-// journal column width, or its data as CSV, with the content type and a file name; plus the zod schema of the request.
-import { z } from 'zod';
+// journal column width, or its data as CSV, with the content type and a file name (the request's query: export-query.ts).
 import { chartSpecFor } from '@/lib/charts';
 import { snapshotFileName } from '@/lib/cite/citation';
-import { type DisplayUnits, displayUnitsQuerySchema } from '@/lib/units';
+import type { DisplayUnits } from '@/lib/units';
+import type { ExportFormat } from './export-query';
 import { resultCsv } from './csv';
 import { renderPdf } from './render-pdf';
 import { renderPng } from './render-png';
 import { renderSvg } from './render-svg';
-import { DEFAULT_ASPECT, figureSize, type FigureWidth, figureWidthSchema } from './widths';
-
-export const exportFormatSchema = z.enum(['svg', 'png', 'pdf', 'csv'], { error: 'format must be svg, png, pdf or csv' });
-export type ExportFormat = z.infer<typeof exportFormatSchema>;
-
-/**
- * Query of an export request (`?format=pdf&width=two-column&units=physical&L=50&mass=0.067`): format (default pdf), journal
- * width (default one column) and display units. Per-field messages on bad input.
- */
-export const exportQuerySchema = z
-  .object({
-    format: exportFormatSchema.default('pdf'),
-    width: figureWidthSchema.default('one-column'),
-    units: z.string().optional(),
-    L: z.string().optional(),
-    mass: z.string().optional(),
-  })
-  .transform((q, ctx) => {
-    const units = displayUnitsQuerySchema.safeParse({ units: q.units, L: q.L, mass: q.mass });
-    if (!units.success) {
-      for (const issue of units.error.issues) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
-      return z.NEVER;
-    }
-    return { format: q.format, width: q.width, units: units.data };
-  });
-export type ExportQuery = z.infer<typeof exportQuerySchema>;
+import { DEFAULT_ASPECT, figureSize, type FigureWidth } from './widths';
 
 export interface ExportFigureInput {
   kind: string;
@@ -48,7 +23,14 @@ export interface ExportFigureInput {
   format: ExportFormat;
   width?: FigureWidth;
   units?: DisplayUnits;
+  /**
+   * Height over width of the chart's frame (e.g. DEFAULT_ASPECT for the snapshot downloads); omitted, the chart keeps the
+   * height of its view spec or kind (maps to scale).
+   */
+  aspect?: number;
+  /** PDF metadata: the document title (default: the label) and creation date (default: a fixed date, reproducible bytes). */
   title?: string;
+  createdAt?: Date;
 }
 
 export interface ExportedFile {
@@ -76,13 +58,13 @@ export async function exportFigure(input: ExportFigureInput): Promise<ExportedFi
   const width = input.width ?? 'one-column';
   const fileName = input.version ? snapshotFileName(input.label, input.version, input.format) : `${input.label}.${input.format}`;
   if (input.format === 'csv') return { body: resultCsv(input.result), contentType: CONTENT_TYPES.csv, fileName };
-  const size = figureSize(width, DEFAULT_ASPECT);
+  const cssWidth = Math.round(figureSize(width, DEFAULT_ASPECT).width.cssPx);
   const spec = chartSpecFor(input.kind, input.result, {
     units: input.units ?? { system: 'dimensionless' },
     params: input.params,
     viewSpec: input.viewSpec,
-    width: Math.round(size.width.cssPx),
-    height: undefined,
+    width: cssWidth,
+    height: input.aspect === undefined ? undefined : Math.round(cssWidth * input.aspect),
     fit: true,
   });
   if (input.format === 'svg') {
@@ -93,6 +75,6 @@ export async function exportFigure(input: ExportFigureInput): Promise<ExportedFi
     const { png } = await renderPng(spec, { width });
     return { body: png, contentType: CONTENT_TYPES.png, fileName };
   }
-  const { pdf } = await renderPdf(spec, { width, title: input.title ?? input.label });
+  const { pdf } = await renderPdf(spec, { width, title: input.title ?? input.label, createdAt: input.createdAt });
   return { body: pdf, contentType: CONTENT_TYPES.pdf, fileName };
 }

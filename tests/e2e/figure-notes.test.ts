@@ -193,7 +193,7 @@ describe('figure notes in the browser', () => {
     // Reading is allowed: exports of a snapshot.
     const snapshots = (await (await coauthor.get(`/api/figures/${figureId}/snapshots`)).json()) as { snapshots: { id: string }[] };
     expect(snapshots.snapshots.length).toBe(2);
-    const svg = await coauthor.get(`/api/snapshots/${snapshots.snapshots[0].id}/export?format=svg&width=one`);
+    const svg = await coauthor.get(`/api/snapshots/${snapshots.snapshots[0].id}/export?format=svg&width=one-column`);
     expect(svg.status).toBe(200);
     expect(await svg.text()).toMatch(/^<svg[\s\S]*width="8.6cm"/);
   });

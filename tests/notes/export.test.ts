@@ -7,7 +7,8 @@ import { defaultViewSpec, type ChartSpec } from '@/lib/charts';
 import { renderPdf, solidifyZeroDashes } from '@/lib/export/render-pdf';
 import { renderPng, svgToPng } from '@/lib/export/render-png';
 import { renderSvg } from '@/lib/export/render-svg';
-import { exportFigure, exportQuerySchema } from '@/lib/export/export-figure';
+import { exportFigure } from '@/lib/export/export-figure';
+import { exportQuerySchema } from '@/lib/export/export-query';
 import { cmToPt, cmToPx, figureSize, figureWidthSchema } from '@/lib/export/widths';
 import { smallResult } from './solver-results';
 

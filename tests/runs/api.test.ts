@@ -4,6 +4,10 @@
 // unknown ids get the same 404.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
+import { getResultById } from '@/db/queries/results';
+import { getSnapshotById } from '@/db/queries/snapshots';
+import { exportFigure } from '@/lib/export/export-figure';
+import { DEFAULT_ASPECT } from '@/lib/export/widths';
 import { RUN_QUEUE } from '@/lib/jobs/queue';
 import { signInWithPassword, type AppClient } from '../helpers/app';
 import { createTestTeam, type TestTeam } from '../helpers/db';
@@ -118,6 +122,44 @@ describe.skipIf(!process.env.APP_URL)('figure-notes API', () => {
     const again = await author.fetch(`/api/figures/${ids.figure}/runs`, { method: 'POST' });
     expect(again.status).toBe(202);
     expect((await again.json()) as object).toMatchObject({ fromCache: true, run: { status: 'succeeded', fromCache: true } });
+  });
+
+  it('exports the snapshot through exportFigure with the one export query', async () => {
+    const snapshot = await getSnapshotById({ id: ids.snapshot! });
+    const result = snapshot && (await getResultById({ id: snapshot.resultId }));
+    expect(result).toBeTruthy();
+    const svg = await author.fetch(`/api/snapshots/${ids.snapshot}/export?format=svg&width=two-column&units=physical&L=40`);
+    expect(svg.status).toBe(200);
+    expect(svg.headers.get('content-disposition')).toContain('flow-v1.svg');
+    const expected = await exportFigure({
+      kind: snapshot!.kind,
+      result: result!.data,
+      params: snapshot!.params,
+      viewSpec: snapshot!.viewSpec,
+      label: snapshot!.label,
+      version: snapshot!.version,
+      format: 'svg',
+      width: 'two-column',
+      units: { system: 'physical', lengthNm: 40, effectiveMass: 0.067 },
+      aspect: DEFAULT_ASPECT,
+    });
+    expect(await svg.text()).toBe(expected.body);
+    const pdf = await author.fetch(`/api/snapshots/${ids.snapshot}/export`);
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
+    expect(pdf.headers.get('content-disposition')).toContain('flow-v1.pdf');
+    const csv = await author.fetch(`/api/snapshots/${ids.snapshot}/export?format=csv`);
+    expect(csv.headers.get('content-type')).toContain('text/csv');
+    expect((await csv.text()).startsWith('table,row,column,value')).toBe(true);
+
+    const bad = await author.fetch(`/api/snapshots/${ids.snapshot}/export?format=gif&width=one&units=physical&L=abc`);
+    expect(bad.status).toBe(400);
+    const { fields } = (await bad.json()) as { fields: Record<string, string[]> };
+    expect(Object.keys(fields).sort()).toEqual(['format', 'width']);
+    const badUnits = await author.fetch(`/api/snapshots/${ids.snapshot}/export?format=svg&units=physical&L=abc`);
+    expect(badUnits.status).toBe(400);
+    expect(Object.keys(((await badUnits.json()) as { fields: Record<string, string[]> }).fields)).toEqual(['L']);
+    const unknownKey = await author.fetch(`/api/snapshots/${ids.snapshot}/export?format=svg&dpi=1200`);
+    expect(unknownKey.status).toBe(400);
   });
 
   it('lets a coauthor read but not edit, run or freeze', async () => {

@@ -3,11 +3,11 @@
 import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db, sqlClient } from '@/db';
-import { deleteFigureById } from '@/db/queries/figures';
+import { deleteFigureById, updateFigure } from '@/db/queries/figures';
 import { getResultById } from '@/db/queries/results';
 import { insertRun } from '@/db/queries/runs';
 import { getSnapshotContext, listSnapshotsByFigure } from '@/db/queries/snapshots';
-import { snapshots, type Figure, type Snapshot } from '@/db/schema';
+import { figures, snapshots, type Figure, type Snapshot } from '@/db/schema';
 import { executeRun } from '@/lib/jobs/run-job';
 import { parseTaskSpec } from '@/lib/physics/schemas';
 import { startRun } from '@/lib/runs/start-run';
@@ -97,6 +97,34 @@ describe('freezing', () => {
     await expect(freezeRun({ runId: '00000000-0000-4000-8000-000000000000', user: world.user })).rejects.toMatchObject({
       code: 'not-found',
     });
+  });
+
+  it('freezes the caption and view spec the figure holds when the freeze takes its lock, none from its caller', async () => {
+    const fig = await setFigureParams(figure.id, { ...SMALL_SPECTRUM, levels: 2 });
+    const runId = await computedRun(fig);
+    // Changed after the run finished, just before freezing: the snapshot carries these values.
+    await updateFigure({ id: figure.id, patch: { caption: 'Caption as edited before the freeze', viewSpec: { usermeta: { level: 1 } } } });
+    // The freeze waits for another transaction that holds the figure row and changes the caption again; a freeze that read
+    // the figure before taking the lock (or without it) would freeze the earlier caption.
+    let release!: () => void;
+    const released = new Promise<void>((resolve) => (release = resolve));
+    let locked!: () => void;
+    const isLocked = new Promise<void>((resolve) => (locked = resolve));
+    const holder = db.transaction(async (tx) => {
+      await tx.select().from(figures).where(eq(figures.id, figure.id)).for('update');
+      locked();
+      await released;
+      await tx.update(figures).set({ caption: 'Caption committed while the freeze waited' }).where(eq(figures.id, figure.id));
+    });
+    await isLocked;
+    // A caption passed by the caller is not part of freezeRun's input and is ignored.
+    const freezing = freezeRun({ runId, user: world.user, ...({ caption: 'from the caller' } as object) });
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    release();
+    await holder;
+    const snapshot = await freezing;
+    expect(snapshot.caption).toBe('Caption committed while the freeze waited');
+    expect(snapshot.viewSpec).toEqual({ usermeta: { level: 1 } });
   });
 
   it('keeps a figure that has snapshots (delete answers 409)', async () => {

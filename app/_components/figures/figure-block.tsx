@@ -3,8 +3,7 @@
 'use client';
 
 import { useCallback, useState } from 'react';
-import type { RunResponse } from '@/hooks/use-run';
-import type { NoteFigure } from '../notes/load-note-figures';
+import type { NoteFigure, RunResponse } from '@/lib/api-types';
 import { FigureChart } from './figure-chart';
 import { RunPanel } from './run-panel';
 

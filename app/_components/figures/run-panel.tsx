@@ -4,8 +4,8 @@
 
 import { useEffect, useRef, useState } from 'react';
 import { ApiError } from '@/lib/fetcher';
-import { cancelRun, freezeRun, isActive, startRun, useRun, type RunResponse } from '@/hooks/use-run';
-import type { RunView } from '../notes/load-note-figures';
+import { cancelRun, freezeRun, isActive, startRun, useRun } from '@/app/_hooks/use-run';
+import type { RunResponse, RunView } from '@/lib/api-types';
 import { ProgressBar } from './progress-bar';
 
 export interface RunPanelProps {

@@ -1,7 +1,7 @@
 // How a Figure block looks in the editor's live preview (static HTML): the figure's title, what the block shows
 // (latest run or a pinned version), its state, and the well drawn to scale. Missing figures or versions are flagged.
 import { WellDrawing } from '../figures/well-drawing';
-import type { NoteFigureData } from './load-note-figures';
+import type { NoteFigureData } from '@/lib/api-types';
 
 export interface FigurePlaceholderProps {
   label: string;

@@ -4,67 +4,9 @@ import { getFigureByLabel } from '@/db/queries/figures';
 import { getResultById } from '@/db/queries/results';
 import { getLatestRun } from '@/db/queries/runs';
 import { listSnapshotsByFigure } from '@/db/queries/snapshots';
-import type { Run } from '@/db/schema';
+import type { Figure, Run, Snapshot } from '@/db/schema';
+import type { FigureView, NoteFigure, NoteFigureData, PinnedView, RunView } from '@/lib/api-types';
 import { extractFigureRefs } from '@/lib/mdx/compile-note';
-
-/** A run as the client sees it (dates as ISO strings). */
-export interface RunView {
-  id: string;
-  figureId: string;
-  status: Run['status'];
-  progress: number;
-  message: string;
-  error: string | null;
-  fromCache: boolean;
-  createdAt: string;
-  finishedAt: string | null;
-  /** The parameters the run computed (the API's full row carries them). */
-  params?: unknown;
-}
-
-export interface FigureView {
-  id: string;
-  label: string;
-  kind: string;
-  title: string;
-  caption: string;
-  params: unknown;
-  viewSpec: Record<string, unknown> | null;
-}
-
-export interface SnapshotSummary {
-  id: string;
-  version: number;
-  frozenAt: string;
-}
-
-/** A pinned snapshot with the data to draw it. */
-export interface PinnedView {
-  snapshotId: string;
-  version: number;
-  params: unknown;
-  caption: string;
-  viewSpec: Record<string, unknown> | null;
-  data: unknown;
-}
-
-export interface NoteFigure {
-  figure: FigureView;
-  snapshots: SnapshotSummary[];
-  /** The newest run in any state (shows progress or the failure reason). */
-  latestRun: RunView | null;
-  /** The newest succeeded run and its result data (what a block that follows the latest run draws). */
-  latestResult: { run: RunView; data: unknown; params: unknown } | null;
-  /** Snapshot results for the versions the note pins. */
-  pinned: Record<number, PinnedView>;
-}
-
-export interface NoteFigureData {
-  manuscriptId: string;
-  manuscriptSlug: string;
-  /** Keyed by label; a label with no figure is absent (the block then says so). */
-  figures: Record<string, NoteFigure>;
-}
 
 /** A run row as {@link RunView}. */
 export function runView(run: Run): RunView {
@@ -83,15 +25,7 @@ export function runView(run: Run): RunView {
 }
 
 /** A figure row as {@link FigureView}. */
-export function figureView(figure: {
-  id: string;
-  label: string;
-  kind: string;
-  title: string;
-  caption: string;
-  params: unknown;
-  viewSpec: unknown;
-}): FigureView {
+export function figureView(figure: Pick<Figure, 'id' | 'label' | 'kind' | 'title' | 'caption' | 'params' | 'viewSpec'>): FigureView {
   return {
     id: figure.id,
     label: figure.label,
@@ -104,26 +38,22 @@ export function figureView(figure: {
 }
 
 /**
- * Everything one figure block needs, for a figure of the manuscript (null when no figure has that label).
+ * Everything one figure block needs, from rows already loaded: the figure, its snapshots and its newest run.
  *
  * @param versions - snapshot versions to load with their data (pinned blocks)
  */
-export async function loadNoteFigure({
-  manuscriptId,
-  label,
+export async function loadFigureBlock({
+  figure,
+  snapshots,
+  latestRun,
   versions,
 }: {
-  manuscriptId: string;
-  label: string;
+  figure: Figure;
+  snapshots: Snapshot[];
+  latestRun: Run | null;
   versions: number[];
-}): Promise<NoteFigure | null> {
-  const figure = await getFigureByLabel({ manuscriptId, label });
-  if (!figure) return null;
-  const [snapshots, latest, latestOk] = await Promise.all([
-    listSnapshotsByFigure({ figureId: figure.id }),
-    getLatestRun({ figureId: figure.id }),
-    getLatestRun({ figureId: figure.id, statuses: ['succeeded'] }),
-  ]);
+}): Promise<NoteFigure> {
+  const latestOk = latestRun?.status === 'succeeded' ? latestRun : await getLatestRun({ figureId: figure.id, statuses: ['succeeded'] });
   let latestResult: NoteFigure['latestResult'] = null;
   if (latestOk?.resultId) {
     const result = await getResultById({ id: latestOk.resultId });
@@ -147,10 +77,30 @@ export async function loadNoteFigure({
   return {
     figure: figureView(figure),
     snapshots: snapshots.map((s) => ({ id: s.id, version: s.version, frozenAt: s.frozenAt.toISOString() })),
-    latestRun: latest ? runView(latest) : null,
+    latestRun: latestRun ? runView(latestRun) : null,
     latestResult,
     pinned,
   };
+}
+
+/**
+ * Everything one figure block needs, for a figure of the manuscript (null when no figure has that label).
+ *
+ * @param versions - snapshot versions to load with their data (pinned blocks)
+ */
+export async function loadNoteFigure({
+  manuscriptId,
+  label,
+  versions,
+}: {
+  manuscriptId: string;
+  label: string;
+  versions: number[];
+}): Promise<NoteFigure | null> {
+  const figure = await getFigureByLabel({ manuscriptId, label });
+  if (!figure) return null;
+  const [snapshots, latestRun] = await Promise.all([listSnapshotsByFigure({ figureId: figure.id }), getLatestRun({ figureId: figure.id })]);
+  return loadFigureBlock({ figure, snapshots, latestRun, versions });
 }
 
 /**

@@ -6,7 +6,7 @@ import { describeUnits, DIMENSIONLESS } from '@/lib/units';
 import { FigureBlock } from '../figures/figure-block';
 import { Callout } from './callout';
 import { FigurePlaceholder } from './figure-placeholder';
-import type { NoteFigureData } from './load-note-figures';
+import type { NoteFigureData } from '@/lib/api-types';
 import { noteElements } from './note-elements';
 import { SnapshotRef } from './snapshot-ref';
 import { UnitsLine } from './units-line';

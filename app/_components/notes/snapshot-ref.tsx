@@ -1,6 +1,6 @@
 // The SnapshotRef of figure notes: an inline citation "Fig. label v2" linking to the snapshot's stable page,
 // or a visible warning when the note names a snapshot that does not exist (yet). Plain <a>: also rendered to static HTML.
-import type { NoteFigureData } from './load-note-figures';
+import type { NoteFigureData } from '@/lib/api-types';
 
 export interface SnapshotRefProps {
   label: string;

@@ -5,13 +5,14 @@ import { forbidden } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { slugFromTitle } from '@/lib/validations/common';
 import { createManuscriptSchema, manuscriptListQuerySchema } from '@/lib/validations/manuscript';
+import type { ManuscriptsBody } from '@/lib/api-types';
 
 export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, query }) => {
   if (query.scope === 'all') {
     if (!user.isAdmin) throw forbidden('Only site admins may list every manuscript');
-    return { manuscripts: await listAllManuscripts({ userId: user.id }) };
+    return { manuscripts: await listAllManuscripts({ userId: user.id }) } satisfies ManuscriptsBody;
   }
-  return { manuscripts: await listManuscriptsForUser({ userId: user.id }) };
+  return { manuscripts: await listManuscriptsForUser({ userId: user.id }) } satisfies ManuscriptsBody;
 });
 
 export const POST = route({ body: createManuscriptSchema, status: 201 }, async ({ user, body }) => {

@@ -3,7 +3,8 @@
 'use client';
 
 import { useState } from 'react';
-import { usePendingInvitations } from '@/hooks/use-pending-invitations';
+import { usePendingInvitations } from '@/app/_hooks/use-pending-invitations';
+import type { PendingInvitationsResponse } from '@/lib/api-types';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS, ROLES } from '@/lib/authz/roles';
 import { sendJson } from '@/lib/fetcher';
 import { MAX_EMAIL } from '@/lib/validations/common';
@@ -16,9 +17,16 @@ import { RelativeTime } from '../../_components/relative-time';
 import { useToast } from '../../_components/toaster';
 import { useJsonForm } from '../../_components/use-json-form';
 
-export function InvitePanel({ manuscriptId }: { manuscriptId: string }) {
+export function InvitePanel({
+  manuscriptId,
+  initial,
+}: {
+  manuscriptId: string;
+  /** The pending invitations as the page loaded them (the hook's fallback). */
+  initial?: PendingInvitationsResponse;
+}) {
   const toast = useToast();
-  const { invitations, mutate } = usePendingInvitations(manuscriptId);
+  const { invitations, mutate } = usePendingInvitations(manuscriptId, initial);
   const [role, setRole] = useState<(typeof ROLES)[number]>('coauthor');
   const { fields, message, busy, onSubmit } = useJsonForm(createInvitationSchema, async (data, form) => {
     await sendJson(`/api/manuscripts/${manuscriptId}/members`, { method: 'POST', body: data });

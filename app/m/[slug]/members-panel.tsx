@@ -4,7 +4,8 @@
 
 import { useRouter } from 'next/navigation';
 import type { MemberRole } from '@/db/schema';
-import { useMembers } from '@/hooks/use-members';
+import { useMembers } from '@/app/_hooks/use-members';
+import type { MembersResponse } from '@/lib/api-types';
 import { ROLE_LABELS, ROLES } from '@/lib/authz/roles';
 import { ApiError, sendJson } from '@/lib/fetcher';
 import { RoleBadge } from '../../_components/badges';
@@ -18,15 +19,18 @@ export function MembersPanel({
   currentUserId,
   canManage,
   isMember,
+  initial,
 }: {
   manuscriptId: string;
   currentUserId: string;
   canManage: boolean;
   isMember: boolean;
+  /** The list as the page loaded it (the hook's fallback). */
+  initial?: MembersResponse;
 }) {
   const router = useRouter();
   const toast = useToast();
-  const { members, error, isLoading, mutate } = useMembers(manuscriptId);
+  const { members, error, isLoading, mutate } = useMembers(manuscriptId, initial);
 
   async function changeRole(userId: string, role: MemberRole) {
     try {

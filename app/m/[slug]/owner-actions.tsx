@@ -4,7 +4,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useSWRConfig } from 'swr';
-import { manuscriptsKey } from '@/hooks/use-manuscripts';
+import { manuscriptsKey } from '@/app/_hooks/use-manuscripts';
 import type { ManuscriptJson } from '@/lib/api-types';
 import { ApiError, sendJson } from '@/lib/fetcher';
 import { Card } from '../../_components/card';

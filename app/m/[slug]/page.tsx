@@ -1,7 +1,11 @@
 // A manuscript's overview: title, status, abstract and members for every member; the details form for authors
 // and owners; invitations, role changes, archive and delete for owners.
 import type { Metadata } from 'next';
+import { listPendingInvitations } from '@/db/queries/invitations';
+import { listMembers } from '@/db/queries/members';
+import type { MembersBody, PendingInvitationsBody } from '@/lib/api-types';
 import { ROLE_LABELS, ROLE_RIGHTS_FOR_YOU } from '@/lib/authz/roles';
+import { toJson } from '@/lib/to-json';
 import { AdminBadge, ArchivedBadge, RoleBadge, StatusBadge } from '../../_components/badges';
 import { Card } from '../../_components/card';
 import { RelativeTime } from '../../_components/relative-time';
@@ -25,6 +29,11 @@ export default async function ManuscriptPage({ params }: Props) {
   const { user, detail } = await loadManuscriptPage(slug);
   const { manuscript, permissions } = detail;
   const archived = manuscript.archivedAt !== null;
+  // The lists the panels' hooks follow, loaded here so their first render needs no request.
+  const [members, invitations] = await Promise.all([
+    listMembers({ manuscriptId: manuscript.id }),
+    permissions.manage ? listPendingInvitations({ manuscriptId: manuscript.id }) : null,
+  ]);
 
   return (
     <div className="space-y-8">
@@ -77,7 +86,7 @@ export default async function ManuscriptPage({ params }: Props) {
           )}
           {permissions.manage && (
             <Card title="Invite someone" description="They receive a link by e-mail that signs them up into the role you choose." id="invite">
-              <InvitePanel manuscriptId={manuscript.id} />
+              <InvitePanel manuscriptId={manuscript.id} initial={toJson({ invitations: invitations ?? [] } satisfies PendingInvitationsBody)} />
             </Card>
           )}
           {permissions.manage && (
@@ -89,6 +98,7 @@ export default async function ManuscriptPage({ params }: Props) {
           currentUserId={user.id}
           canManage={permissions.manage}
           isMember={detail.memberRole !== null}
+          initial={toJson({ members } satisfies MembersBody)}
         />
       </div>
     </div>

@@ -4,7 +4,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useSWRConfig } from 'swr';
-import { manuscriptsKey } from '@/hooks/use-manuscripts';
+import { manuscriptsKey } from '@/app/_hooks/use-manuscripts';
 import type { ManuscriptJson } from '@/lib/api-types';
 import { sendJson } from '@/lib/fetcher';
 import { MAX_ABSTRACT, MAX_TITLE } from '@/lib/validations/common';

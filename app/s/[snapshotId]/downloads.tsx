@@ -2,15 +2,15 @@
 // one-column (8.6 cm) and two-column (17.8 cm) width, in the display units currently chosen on the page.
 'use client';
 
+import { CHART_FORMATS, exportQueryString, FIGURE_WIDTHS, figureWidthLabel } from '@/lib/export/export-query';
 import { useDisplayUnits } from '../../_components/figures/display-units';
 
 const LINK = 'rounded-md px-2 py-1 text-sm text-flux-700 ring-1 ring-inset ring-flux-200 hover:bg-flux-50';
 
 export function SnapshotDownloads({ snapshotId }: { snapshotId: string }) {
   const { units } = useDisplayUnits();
-  const unitQuery =
-    units.system === 'physical' ? `&units=physical&L=${encodeURIComponent(units.lengthNm)}&mass=${encodeURIComponent(units.effectiveMass)}` : '';
-  const exportHref = (format: string, width: string) => `/api/snapshots/${snapshotId}/export?format=${format}&width=${width}${unitQuery}`;
+  const exportHref = (format: (typeof CHART_FORMATS)[number], width: (typeof FIGURE_WIDTHS)[number]) =>
+    `/api/snapshots/${snapshotId}/export?${exportQueryString({ format, width, units })}`;
   return (
     <div className="space-y-3 text-sm" data-testid="snapshot-downloads">
       <div className="flex flex-wrap items-center gap-2">
@@ -22,10 +22,10 @@ export function SnapshotDownloads({ snapshotId }: { snapshotId: string }) {
           Data (CSV)
         </a>
       </div>
-      {(['one', 'two'] as const).map((width) => (
+      {FIGURE_WIDTHS.map((width) => (
         <div key={width} className="flex flex-wrap items-center gap-2">
-          <span className="w-28 text-slate-600">{width === 'one' ? 'One column, 8.6 cm' : 'Two columns, 17.8 cm'}</span>
-          {(['svg', 'png', 'pdf'] as const).map((format) => (
+          <span className="w-28 text-slate-600">{figureWidthLabel(width)}</span>
+          {CHART_FORMATS.map((format) => (
             <a key={format} className={LINK} href={exportHref(format, width)} download data-testid={`export-${format}-${width}`}>
               {format.toUpperCase()}
             </a>

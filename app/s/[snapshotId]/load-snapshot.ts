@@ -5,36 +5,11 @@ import { notFound, redirect } from 'next/navigation';
 import { listMembers } from '@/db/queries/members';
 import { getResultById } from '@/db/queries/results';
 import { getSnapshotContext, listSnapshotsByFigure } from '@/db/queries/snapshots';
+import type { SnapshotPageData } from '@/lib/api-types';
 import { getCurrentUser } from '@/lib/auth/session';
 import { latexFigureBlock, snapshotBibtex, snapshotCitation, type SnapshotCitationInput } from '@/lib/cite/citation';
 import { isDomainError } from '@/lib/domain-error';
 import { authorizeSnapshot } from '@/lib/runs/resource-access';
-
-export interface SnapshotPageData {
-  snapshot: {
-    id: string;
-    version: number;
-    kind: string;
-    label: string;
-    caption: string;
-    params: unknown;
-    viewSpec: Record<string, unknown> | null;
-    solverVersion: string;
-    gitCommit: string | null;
-    resultHash: string;
-    frozenAt: string;
-    runId: string | null;
-  };
-  manuscript: { id: string; slug: string; title: string };
-  figureTitle: string;
-  frozenBy: string | null;
-  data: unknown;
-  siblings: { id: string; version: number }[];
-  url: string;
-  citation: string;
-  bibtex: string;
-  latex: { one: string; two: string };
-}
 
 /** The app's public origin for stable URLs: APP_URL, NEXTAUTH_URL, else the request's host. */
 async function publicOrigin(): Promise<string> {

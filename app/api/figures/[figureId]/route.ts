@@ -7,6 +7,7 @@ import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeFigure } from '@/lib/runs/resource-access';
 import { figureParamsSchema, updateFigureSchema } from '@/lib/validations/figure';
+import type { FigureBody, UpdateFigureBody } from '@/lib/api-types';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
@@ -17,14 +18,14 @@ export const GET = route({ params: figureParamsSchema }, async ({ params, user }
     listSnapshotsByFigure({ figureId: figure.id }),
     getLatestRun({ figureId: figure.id }),
   ]);
-  return { figure, snapshots, latestRun, role: access.role };
+  return { figure, snapshots, latestRun, role: access.role } satisfies FigureBody;
 });
 
 export const PATCH = route({ params: figureParamsSchema, body: updateFigureSchema }, async ({ params, body, user }) => {
   const { figure } = await authorizeFigure({ user, figureId: params.figureId, need: 'edit' });
   const updated = await updateFigure({ id: figure.id, patch: body });
   if (!updated) throw notFound('Figure not found');
-  return { figure: updated };
+  return { figure: updated } satisfies UpdateFigureBody;
 });
 
 export const DELETE = route({ params: figureParamsSchema }, async ({ params, user }) => {

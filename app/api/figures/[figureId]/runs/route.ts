@@ -5,6 +5,7 @@ import { route } from '@/lib/http/handler';
 import { authorizeFigure } from '@/lib/runs/resource-access';
 import { startRun } from '@/lib/runs/start-run';
 import { figureParamsSchema } from '@/lib/validations/figure';
+import type { StartRunBody } from '@/lib/api-types';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
@@ -17,5 +18,5 @@ export const GET = route({ params: figureParamsSchema }, async ({ params, user }
 export const POST = route({ params: figureParamsSchema, status: 202 }, async ({ params, user }) => {
   const { figure } = await authorizeFigure({ user, figureId: params.figureId, need: 'run' });
   const { run, fromCache } = await startRun({ figure, user });
-  return { run, fromCache };
+  return { run, fromCache } satisfies StartRunBody;
 });

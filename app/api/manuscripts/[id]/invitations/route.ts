@@ -3,7 +3,9 @@
 import { listPendingInvitations } from '@/db/queries/invitations';
 import { route } from '@/lib/http/handler';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
+import type { PendingInvitationsBody } from '@/lib/api-types';
 
-export const GET = route({ params: manuscriptParamsSchema, manuscript: 'manage' }, async ({ access }) => ({
-  invitations: await listPendingInvitations({ manuscriptId: access.manuscript.id }),
-}));
+export const GET = route(
+  { params: manuscriptParamsSchema, manuscript: 'manage' },
+  async ({ access }) => ({ invitations: await listPendingInvitations({ manuscriptId: access.manuscript.id }) }) satisfies PendingInvitationsBody,
+);

@@ -10,10 +10,12 @@ import { route } from '@/lib/http/handler';
 import { sendMail } from '@/lib/mail/send-mail';
 import { createInvitationSchema } from '@/lib/validations/invitation';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
+import type { MembersBody } from '@/lib/api-types';
 
-export const GET = route({ params: manuscriptParamsSchema, manuscript: 'read' }, async ({ access }) => ({
-  members: await listMembers({ manuscriptId: access.manuscript.id }),
-}));
+export const GET = route(
+  { params: manuscriptParamsSchema, manuscript: 'read' },
+  async ({ access }) => ({ members: await listMembers({ manuscriptId: access.manuscript.id }) }) satisfies MembersBody,
+);
 
 export const POST = route(
   { params: manuscriptParamsSchema, body: createInvitationSchema, manuscript: 'manage', status: 201 },

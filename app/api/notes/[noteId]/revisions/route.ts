@@ -5,6 +5,7 @@ import { notFound } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
 import { authorizeNote } from '@/lib/runs/resource-access';
 import { noteParamsSchema, revisionsQuerySchema } from '@/lib/validations/note';
+import type { RevisionPairBody, RevisionsBody } from '@/lib/api-types';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
@@ -14,7 +15,7 @@ export const GET = route({ params: noteParamsSchema, query: revisionsQuerySchema
   if (query.from !== undefined && query.to !== undefined) {
     const pair = await getRevisionPair({ noteId: note.id, from: query.from, to: query.to });
     if (!pair) throw notFound('Revision not found');
-    return pair;
+    return pair satisfies RevisionPairBody;
   }
-  return { revisions: await getNoteRevisions({ noteId: note.id }) };
+  return { revisions: await getNoteRevisions({ noteId: note.id }) } satisfies RevisionsBody;
 });

@@ -4,11 +4,12 @@ import { route } from '@/lib/http/handler';
 import { authorizeRun } from '@/lib/runs/resource-access';
 import { freezeRun } from '@/lib/snapshots/freeze';
 import { runParamsSchema } from '@/lib/validations/figure';
+import type { FreezeRunBody } from '@/lib/api-types';
 
 export const runtime = 'nodejs';
 export const dynamic = 'force-dynamic';
 
 export const POST = route({ params: runParamsSchema, status: 201 }, async ({ params, user }) => {
   const { run } = await authorizeRun({ user, runId: params.runId, need: 'freeze' });
-  return { snapshot: await freezeRun({ runId: run.id, user }) };
+  return { snapshot: await freezeRun({ runId: run.id, user }) } satisfies FreezeRunBody;
 });

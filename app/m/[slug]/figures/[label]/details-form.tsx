@@ -3,7 +3,7 @@
 'use client';
 
 import { useState } from 'react';
-import { updateFigure } from '@/hooks/use-figure';
+import { updateFigure } from '@/app/_hooks/use-figure';
 import { figureCaptionSchema, figureTitleSchema } from '@/lib/validations/figure';
 import { Button } from '../../../../_components/button';
 import { TextAreaField, TextField } from '../../../../_components/field';

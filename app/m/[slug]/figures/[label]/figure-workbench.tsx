@@ -5,8 +5,7 @@
 import { useRouter } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import type { FieldValues } from 'react-hook-form';
-import { useFigure } from '@/hooks/use-figure';
-import type { RunResponse } from '@/hooks/use-run';
+import { useFigure } from '@/app/_hooks/use-figure';
 import { defaultViewSpec } from '@/lib/charts';
 import { CHART_VIEWS, type FigureKind } from '@/lib/figure-kinds/registry';
 import { Card } from '../../../../_components/card';
@@ -14,7 +13,7 @@ import { DisplayUnitsSwitch, useDisplayUnits } from '../../../../_components/fig
 import { FigureChart } from '../../../../_components/figures/figure-chart';
 import { RunPanel } from '../../../../_components/figures/run-panel';
 import { WellDrawing } from '../../../../_components/figures/well-drawing';
-import type { FigureView, RunView } from '../../../../_components/notes/load-note-figures';
+import type { FigureResponse, FigureView, RunResponse, RunView } from '@/lib/api-types';
 import { FigureDetailsForm } from './details-form';
 import { ParamsForm, type ParamsFormHandle } from './params-form';
 import { SnapshotList, type SnapshotRow } from './snapshot-list';
@@ -25,7 +24,8 @@ export interface FigureWorkbenchProps {
   manuscriptSlug: string;
   latestRun: RunView | null;
   latestResult: { run: RunView; data: unknown; params: unknown } | null;
-  snapshots: SnapshotRow[];
+  /** The figure, its snapshots and newest run as the page loaded them (GET /api/figures/[id]'s answer; the hook's fallback). */
+  initial: FigureResponse;
   /** Names of the people who may have frozen snapshots (user id -> name), for the snapshot list. */
   people: Record<string, string>;
   can: { edit: boolean; run: boolean };
@@ -36,19 +36,17 @@ function withoutData(spec: unknown): unknown {
   return JSON.parse(JSON.stringify(spec, (key, value) => (key === 'values' && Array.isArray(value) ? `[${value.length} rows]` : value)));
 }
 
-export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResult, snapshots: initialSnapshots, people, can }: FigureWorkbenchProps) {
+export function FigureWorkbench({ figure, manuscriptSlug, latestRun, latestResult, initial, people, can }: FigureWorkbenchProps) {
   const router = useRouter();
-  // The figure as the API has it now: its snapshot list refreshes after each freeze without reloading the page.
-  const live = useFigure(figure.id);
-  const snapshots: SnapshotRow[] = live.data
-    ? live.data.snapshots.map((s) => ({
-        id: s.id,
-        version: s.version,
-        frozenAt: s.frozenAt,
-        frozenBy: s.frozenById ? (people[s.frozenById] ?? null) : null,
-        resultHash: s.resultHash,
-      }))
-    : initialSnapshots;
+  // The figure as the API has it now (first the page's rows): its snapshot list refreshes after each freeze without reloading.
+  const live = useFigure(figure.id, initial);
+  const snapshots: SnapshotRow[] = (live.data ?? initial).snapshots.map((s) => ({
+    id: s.id,
+    version: s.version,
+    frozenAt: s.frozenAt,
+    frozenBy: s.frozenById ? (people[s.frozenById] ?? null) : null,
+    resultHash: s.resultHash,
+  }));
   const { units } = useDisplayUnits();
   const [shown, setShown] = useState(latestResult);
   const [viewSpec, setViewSpec] = useState(figure.viewSpec);

@@ -4,13 +4,16 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { getFigureByLabel } from '@/db/queries/figures';
 import { listMembers } from '@/db/queries/members';
+import { getLatestRun } from '@/db/queries/runs';
 import { listSnapshotsByFigure } from '@/db/queries/snapshots';
 import { getUserById } from '@/db/queries/users';
+import type { FigureBody } from '@/lib/api-types';
 import { KIND_LABELS, type FigureKind } from '@/lib/figure-kinds/registry';
+import { toJson } from '@/lib/to-json';
 import { DisplayUnitsProvider } from '../../../../_components/figures/display-units';
 import { requireManuscriptPage } from '../../../../_components/figures/page-access';
 import { SectionHeader } from '../../../../_components/figures/section-header';
-import { loadNoteFigure } from '../../../../_components/notes/load-note-figures';
+import { loadFigureBlock } from '../../../../_components/notes/load-note-figures';
 import { FigureWorkbench } from './figure-workbench';
 
 type Props = { params: Promise<{ slug: string; label: string }> };
@@ -22,14 +25,12 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 export default async function FigurePage({ params }: Props) {
   const { slug, label } = await params;
-  const { manuscript, can } = await requireManuscriptPage({ slug, need: 'read', next: `/m/${slug}/figures/${label}` });
+  const { manuscript, can, role } = await requireManuscriptPage({ slug, need: 'read', next: `/m/${slug}/figures/${label}` });
   const figure = await getFigureByLabel({ manuscriptId: manuscript.id, label });
   if (!figure) notFound();
-  const [loaded, snapshots] = await Promise.all([
-    loadNoteFigure({ manuscriptId: manuscript.id, label, versions: [] }),
-    listSnapshotsByFigure({ figureId: figure.id }),
-  ]);
-  if (!loaded) notFound();
+  // Each row is read once and passed on: to the block loader and, as GET /api/figures/[id] would send it, to the hook.
+  const [snapshots, latestRun] = await Promise.all([listSnapshotsByFigure({ figureId: figure.id }), getLatestRun({ figureId: figure.id })]);
+  const loaded = await loadFigureBlock({ figure, snapshots, latestRun, versions: [] });
   // Names of whoever froze a snapshot: the members, plus former members or admins who froze one.
   const frozenBy = new Map<string, string>();
   for (const member of await listMembers({ manuscriptId: manuscript.id })) frozenBy.set(member.userId, member.name ?? member.email);
@@ -50,13 +51,7 @@ export default async function FigurePage({ params }: Props) {
         manuscriptSlug={manuscript.slug}
         latestRun={loaded.latestRun}
         latestResult={loaded.latestResult}
-        snapshots={snapshots.map((s) => ({
-          id: s.id,
-          version: s.version,
-          frozenAt: s.frozenAt.toISOString(),
-          frozenBy: s.frozenById ? (frozenBy.get(s.frozenById) ?? null) : null,
-          resultHash: s.resultHash,
-        }))}
+        initial={toJson({ figure, snapshots, latestRun, role } satisfies FigureBody)}
         people={Object.fromEntries(frozenBy)}
         can={{ edit: can.edit, run: can.run }}
       />

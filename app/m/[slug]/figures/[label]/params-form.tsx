@@ -5,7 +5,9 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { forwardRef, useEffect, useImperativeHandle, useState } from 'react';
 import { FormProvider, useForm, useWatch, type FieldValues, type Resolver } from 'react-hook-form';
-import { updateFigure } from '@/hooks/use-figure';
+import type { z } from 'zod';
+import { updateFigure } from '@/app/_hooks/use-figure';
+import type { FigureView } from '@/lib/api-types';
 import { ApiError } from '@/lib/fetcher';
 import { figureKind, type FigureKind } from '@/lib/figure-kinds/registry';
 import { Button } from '../../../../_components/button';
@@ -47,7 +49,7 @@ export interface ParamsFormProps {
   initial: FieldValues;
   /** L in nm when the page shows physical units (the drawing's scale bar). */
   lengthNm?: number | null;
-  onSaved?: (params: unknown) => void;
+  onSaved?: (params: FigureView['params']) => void;
 }
 
 /** The editable parameters of one figure. */

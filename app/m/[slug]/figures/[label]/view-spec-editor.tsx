@@ -3,7 +3,7 @@
 'use client';
 
 import { useId, useState } from 'react';
-import { updateFigure } from '@/hooks/use-figure';
+import { updateFigure } from '@/app/_hooks/use-figure';
 import { ApiError } from '@/lib/fetcher';
 import { viewSpecSchema } from '@/lib/charts/view-spec';
 import { Button } from '../../../../_components/button';

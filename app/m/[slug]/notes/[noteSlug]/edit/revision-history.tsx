@@ -4,26 +4,14 @@
 
 import { useEffect, useState } from 'react';
 import useSWR from 'swr';
+import type { RevisionPairResponse, RevisionsResponse } from '@/lib/api-types';
 import { fetcher, type ApiError } from '@/lib/fetcher';
 import { RelativeTime } from '../../../../../_components/relative-time';
 import { diffStats, lineDiff } from './line-diff';
 
-interface RevisionRow {
-  number: number;
-  title: string;
-  createdAt: string;
-  author: { id: string; name: string | null } | null;
-  bytes: number;
-}
-
-interface RevisionPair {
-  from: { number: number; title: string; source: string };
-  to: { number: number; title: string; source: string };
-}
-
 /** The history list and the diff of two chosen revisions. `refreshKey` changes after each save. */
 export function RevisionHistory({ noteId, refreshKey }: { noteId: string; refreshKey: number }) {
-  const { data, error, mutate } = useSWR<{ revisions: RevisionRow[] }, ApiError>(`/api/notes/${noteId}/revisions`, fetcher);
+  const { data, error, mutate } = useSWR<RevisionsResponse, ApiError>(`/api/notes/${noteId}/revisions`, fetcher);
   useEffect(() => {
     if (refreshKey > 0) void mutate();
   }, [refreshKey, mutate]);
@@ -32,7 +20,7 @@ export function RevisionHistory({ noteId, refreshKey }: { noteId: string; refres
   const newest = revisions[0]?.number;
   const chosen = pick ?? (newest && newest > 1 ? { from: newest - 1, to: newest } : null);
   const pairKey = chosen && chosen.from !== chosen.to ? `/api/notes/${noteId}/revisions?from=${chosen.from}&to=${chosen.to}` : null;
-  const pair = useSWR<RevisionPair, ApiError>(pairKey, fetcher);
+  const pair = useSWR<RevisionPairResponse, ApiError>(pairKey, fetcher);
 
   if (error) return <p className="text-sm text-red-700">The history could not be loaded: {error.message}</p>;
   if (!data) return <p className="text-sm text-slate-500">Loading the history…</p>;

@@ -3,7 +3,7 @@
 'use client';
 
 import useSWR from 'swr';
-import type { ManuscriptListItemJson } from '@/lib/api-types';
+import type { ManuscriptsResponse } from '@/lib/api-types';
 import { fetcher, type ApiError } from '@/lib/fetcher';
 
 export function manuscriptsKey(scope: 'mine' | 'all' = 'mine'): string {
@@ -11,7 +11,7 @@ export function manuscriptsKey(scope: 'mine' | 'all' = 'mine'): string {
 }
 
 export function useManuscripts(scope: 'mine' | 'all' = 'mine') {
-  const { data, error, isLoading, mutate } = useSWR<{ manuscripts: ManuscriptListItemJson[] }, ApiError>(
+  const { data, error, isLoading, mutate } = useSWR<ManuscriptsResponse, ApiError>(
     manuscriptsKey(scope),
     fetcher,
   );

@@ -3,14 +3,8 @@
 'use client';
 
 import useSWR from 'swr';
+import type { CancelRunResponse, FreezeRunResponse, RunResponse, RunView, StartRunResponse } from '@/lib/api-types';
 import { fetcher, sendJson, type ApiError } from '@/lib/fetcher';
-import type { RunView } from '@/app/_components/notes/load-note-figures';
-
-/** What GET /api/runs/[id] answers. */
-export interface RunResponse {
-  run: RunView;
-  result: { id: string; resultHash: string; solverVersion: string; data: unknown; diagnostics: unknown } | null;
-}
 
 /** How often a live run is polled (ms). */
 export const RUN_POLL_MS = 600;
@@ -35,16 +29,16 @@ export function useRun(runId: string | null) {
 }
 
 /** Start a run of a figure with its saved parameters (POST /api/figures/[id]/runs). */
-export function startRun(figureId: string): Promise<{ run: RunView; fromCache: boolean }> {
+export function startRun(figureId: string): Promise<StartRunResponse> {
   return sendJson(`/api/figures/${figureId}/runs`, { method: 'POST' });
 }
 
 /** Cancel a queued or running run. */
-export function cancelRun(runId: string): Promise<{ run: RunView }> {
+export function cancelRun(runId: string): Promise<CancelRunResponse> {
   return sendJson(`/api/runs/${runId}/cancel`, { method: 'POST' });
 }
 
 /** Freeze a succeeded run as the figure's next snapshot version. */
-export function freezeRun(runId: string): Promise<{ snapshot: { id: string; version: number } }> {
+export function freezeRun(runId: string): Promise<FreezeRunResponse> {
   return sendJson(`/api/runs/${runId}/freeze`, { method: 'POST' });
 }
