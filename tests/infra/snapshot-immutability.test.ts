@@ -4,6 +4,7 @@ import { eq, sql, TransactionRollbackError } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { figures, manuscripts, results, snapshots, users } from '@/db/schema';
 import { testDb, uniqueTag } from '../helpers/db';
+import { rejectionOf } from '../helpers/thrown';
 
 /** The PostgreSQL error under Drizzle's wrapper (DrizzleQueryError keeps it as `cause`). */
 function pgError(error: unknown): { code?: string; message: string } {
@@ -15,14 +16,12 @@ function pgError(error: unknown): { code?: string; message: string } {
 type Tx = Parameters<Parameters<typeof testDb.transaction>[0]>[0];
 
 async function refused(tx: Tx, statement: (sp: Tx) => Promise<unknown>): Promise<{ code?: string; message: string }> {
-  try {
-    await tx.transaction(async (sp) => {
+  const error = await rejectionOf(
+    tx.transaction(async (sp) => {
       await statement(sp);
-    });
-  } catch (error) {
-    return pgError(error);
-  }
-  throw new Error('the statement was not refused');
+    }),
+  );
+  return pgError(error);
 }
 
 describe('snapshot immutability (database trigger)', () => {

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { TASK_NAMES } from '@/lib/physics/run-task';
 import { createFigureSchema, FIGURE_KINDS, updateFigureSchema } from '@/lib/validations/figure';
 import { SMALL_SPECTRUM } from './fixtures';
+import { refusalOf } from '../helpers/refusal';
 
 describe('figure validation', () => {
   it('offers one kind per solver task', () => {
@@ -26,17 +27,14 @@ describe('figure validation', () => {
       kind: 'spectrum',
       params: { ...SMALL_SPECTRUM, well: { disk: { center: [0, 0], radius: -1 } } },
     });
-    expect(result.success).toBe(false);
-    if (result.success) return;
-    const paths = result.error.issues.map((issue) => issue.path.join('.'));
+    const paths = refusalOf(result).issues.map((issue) => issue.path.join('.'));
     expect(paths).toContain('label');
     expect(paths).toContain('params.well.disk.radius');
   });
 
   it('refuses a kind that does not match the parameters', () => {
     const result = createFigureSchema.safeParse({ label: 'a', kind: 'holonomy', params: SMALL_SPECTRUM });
-    expect(result.success).toBe(false);
-    if (!result.success) expect(result.error.issues.map((i) => i.path.join('.'))).toContain('params.task');
+    expect(refusalOf(result).issues.map((i) => i.path.join('.'))).toContain('params.task');
   });
 
   it('accepts partial updates and refuses empty ones', () => {
