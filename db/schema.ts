@@ -1,5 +1,5 @@
 // Drizzle schema for Fluxfolio: people and manuscripts (foundation), figure notes, figures, runs,
-// cached results and frozen snapshots (figure notes step). Review tables (comments, approvals, referee links) come later.
+// cached results and frozen snapshots (figure notes step).
 import { relations } from 'drizzle-orm';
 import {
   boolean,

@@ -16,7 +16,7 @@ import { ManuscriptListSkeleton } from './manuscript-list-skeleton';
 const WHAT_I_CAN_DO: Record<MemberRole, string> = {
   owner: 'You manage members and can edit, run, archive or delete.',
   author: 'You edit notes and figures and start runs.',
-  coauthor: 'You read, comment and approve.',
+  coauthor: 'You read the notes, figures and snapshots.',
 };
 
 export function ManuscriptList({ scope }: { scope: 'mine' | 'all' }) {

@@ -8,7 +8,7 @@ import { roleAtLeast } from './roles';
 
 /**
  * The one table of manuscript-scoped actions: the least role that may perform each, and whether the action
- * changes content (refused while the manuscript is archived). Later steps add rows here (approve, referee links, …).
+ * changes content (refused while the manuscript is archived).
  */
 export const MANUSCRIPT_ACTIONS = {
   /** See the manuscript, its members, notes, figures and snapshots. */

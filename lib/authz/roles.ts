@@ -37,12 +37,12 @@ export const ROLE_LABELS: Record<MemberRole, string> = {
 export const ROLE_DESCRIPTIONS: Record<MemberRole, string> = {
   owner: 'Manages members, archives or deletes the manuscript, and does everything an author does.',
   author: 'Edits figure notes and figures, starts solver runs, and does everything a coauthor does.',
-  coauthor: 'Reads the manuscript, comments and approves.',
+  coauthor: 'Reads the manuscript: notes, figures and snapshots.',
 };
 
 /** The same rights addressed to the person holding the role ("As coauthor, you …"), for e-mails and the dashboard. */
 export const ROLE_RIGHTS_FOR_YOU: Record<MemberRole, string> = {
   owner: 'manage members, archive or delete the manuscript, and do everything an author does',
   author: 'edit figure notes and figures, start solver runs, and do everything a coauthor does',
-  coauthor: 'read the manuscript, comment and approve',
+  coauthor: 'read the manuscript: its notes, figures and snapshots',
 };

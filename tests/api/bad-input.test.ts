@@ -2,20 +2,23 @@
 // are answered with 400 (per-field messages) or 404, and nothing is written to the database.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
-import { Client, createManuscript, createUser, signedInClient, tableCounts, type TestUser } from './web-support';
+import { HttpClient, signedInClient } from '../helpers/http-client';
+import { tableCounts } from '../helpers/manuscript-rows';
+import { createTestManuscript } from '../helpers/test-manuscripts';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 let owner: TestUser;
 let coauthor: TestUser;
-let client: Client;
+let client: HttpClient;
 let manuscriptId: string;
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 const UNKNOWN_TOKEN = 'A'.repeat(43);
 
 beforeAll(async () => {
-  owner = await createUser({ label: 'bad-owner' });
-  coauthor = await createUser({ label: 'bad-coauthor' });
+  owner = await createTestUser({ label: 'bad-owner' });
+  coauthor = await createTestUser({ label: 'bad-coauthor' });
   client = await signedInClient(owner);
-  const manuscript = await createManuscript({
+  const manuscript = await createTestManuscript({
     title: 'Bad input',
     members: [
       { user: owner, role: 'owner' },
@@ -141,7 +144,7 @@ describe('bad input is refused and writes nothing', () => {
     });
     expect(invited.status).toBe(201);
     // The token is only in the e-mail; an unknown token with a bad body is still a 400 first (validation before lookup).
-    const anonymous = new Client();
+    const anonymous = new HttpClient();
     const before = await tableCounts();
     const short = await anonymous.json('POST', `/api/invitations/${UNKNOWN_TOKEN}`, { name: 'x'.repeat(121), password: 'short' });
     expect(short.status).toBe(400);

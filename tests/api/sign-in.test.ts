@@ -2,35 +2,32 @@
 // the fake SMTP server's mailbox (link works once; unknown addresses get a note without a link).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
-import { APP_URL, Client, createUser, mailsTo, waitForMailTo, type TestUser } from './web-support';
+import { APP_URL, HttpClient } from '../helpers/http-client';
+import { linkIn, linksIn, mailsTo, waitForMailTo } from '../helpers/mail';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 let person: TestUser;
 let admin: TestUser;
 
 beforeAll(async () => {
-  person = await createUser({ label: 'signin-person' });
-  admin = await createUser({ label: 'signin-admin', isAdmin: true });
+  person = await createTestUser({ label: 'signin-person' });
+  admin = await createTestUser({ label: 'signin-admin', role: 'admin' });
 });
 
 afterAll(async () => {
   await sqlClient.end({ timeout: 5 });
 });
 
-async function requestLink(client: Client, email: string): Promise<Response> {
-  const csrfToken = await client.csrfToken();
-  const response = await client.request('/api/auth/signin/email', {
-    method: 'POST',
-    headers: { 'content-type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams({ csrfToken, email, callbackUrl: `${APP_URL}/dashboard` }),
-  });
-  await response.text();
-  return response;
+/** A fresh client signed in as `user` (or trying to, with another password). */
+async function signIn(email: string, password: string): Promise<{ client: HttpClient; location: string }> {
+  const client = new HttpClient();
+  const { location } = await client.signInWithPassword(email, password);
+  return { client, location };
 }
 
 describe('password sign-in', () => {
   it('signs in with the right password; the session carries id and admin flag', async () => {
-    const client = new Client();
-    await client.signInWithPassword(person.email);
+    const { client } = await signIn(person.email, person.password);
     const session = await client.session();
     expect(session?.user).toMatchObject({ id: person.id, email: person.email, isAdmin: false });
     const me = await client.json('GET', '/api/me');
@@ -40,27 +37,25 @@ describe('password sign-in', () => {
   });
 
   it('sends / to the dashboard when signed in and to the sign-in page otherwise', async () => {
-    const anonymous = await new Client().request('/');
+    const anonymous = await new HttpClient().fetch('/');
     expect(anonymous.status).toBe(307);
     expect(anonymous.headers.get('location')).toMatch(/\/sign-in$/);
-    const client = new Client();
-    await client.signInWithPassword(person.email);
-    const signedIn = await client.request('/');
+    const { client } = await signIn(person.email, person.password);
+    const signedIn = await client.fetch('/');
+    expect(signedIn.status).toBe(307);
     expect(signedIn.headers.get('location')).toMatch(/\/dashboard$/);
     // The dashboard streams its loading state first, so its redirect may arrive inside the body rather than as a header.
-    const page = await new Client().request('/dashboard');
+    const page = await new HttpClient().fetch('/dashboard');
     expect(page.headers.get('location') ?? (await page.text())).toMatch(/\/sign-in\?callbackUrl=%2Fdashboard/);
   });
 
   it('marks site admins in the session', async () => {
-    const client = new Client();
-    await client.signInWithPassword(admin.email);
+    const { client } = await signIn(admin.email, admin.password);
     expect((await client.session())?.user?.isAdmin).toBe(true);
   });
 
   it('accepts the address in any letter case', async () => {
-    const client = new Client();
-    await client.signInWithPassword(person.email.toUpperCase());
+    const { client } = await signIn(person.email.toUpperCase(), person.password);
     expect((await client.session())?.user?.id).toBe(person.id);
   });
 
@@ -69,8 +64,7 @@ describe('password sign-in', () => {
       [person.email, 'not the password'],
       [`nobody.${Date.now()}@fluxfolio.test`, 'whatever it is'],
     ]) {
-      const client = new Client();
-      const location = await client.signInWithPassword(email, password);
+      const { client, location } = await signIn(email, password);
       expect(location).toMatch(/error=CredentialsSignin/);
       expect(await client.session()).toBeNull();
       expect((await client.json('GET', '/api/me')).status).toBe(401);
@@ -78,59 +72,48 @@ describe('password sign-in', () => {
   });
 
   it('signs out', async () => {
-    const client = new Client();
-    await client.signInWithPassword(person.email);
-    const csrfToken = await client.csrfToken();
-    await client.request('/api/auth/signout', {
-      method: 'POST',
-      headers: { 'content-type': 'application/x-www-form-urlencoded' },
-      body: new URLSearchParams({ csrfToken }),
-    });
+    const { client } = await signIn(person.email, person.password);
+    expect((await client.session())?.user?.id).toBe(person.id);
+    await client.signOut();
     expect(await client.session()).toBeNull();
   });
 });
 
 describe('e-mail link sign-in', () => {
   it('sends a link through SMTP that signs in once', async () => {
-    const since = Date.now();
-    const client = new Client();
-    const response = await requestLink(client, person.email);
-    expect(response.headers.get('location') ?? '').toMatch(/verify-request|check-mail/);
+    const since = new Date();
+    expect(await new HttpClient().requestSignInLink(person.email)).toMatch(/verify-request|check-mail/);
 
-    const mail = await waitForMailTo(person.email, since);
+    const mail = await waitForMailTo(person.email, { since });
     expect(mail.subject).toMatch(/sign-in link/i);
-    const link = mail.links.find((url) => url.includes('/api/auth/callback/email'));
-    expect(link, mail.raw).toBeTruthy();
-    const target = new URL(link!);
+    const target = new URL(linkIn(mail, '/api/auth/callback/email'));
     expect(target.origin).toBe(new URL(APP_URL).origin);
 
-    const browser = new Client();
-    const callback = await browser.request(`${target.pathname}${target.search}`);
+    const browser = new HttpClient();
+    const callback = await browser.fetch(`${target.pathname}${target.search}`);
     expect(callback.status).toBe(302);
     expect(callback.headers.get('location')).toMatch(/\/dashboard$/);
     expect((await browser.session())?.user).toMatchObject({ id: person.id, email: person.email });
 
-    const again = new Client();
-    const second = await again.request(`${target.pathname}${target.search}`);
+    const again = new HttpClient();
+    const second = await again.fetch(`${target.pathname}${target.search}`);
     expect(second.headers.get('location') ?? '').toMatch(/error=Verification/);
     expect(await again.session()).toBeNull();
   });
 
   it('answers an unknown address like a known one, and mails a note without a link', async () => {
     const stranger = `stranger.${Date.now()}@fluxfolio.test`;
-    const since = Date.now();
-    const response = await requestLink(new Client(), stranger);
-    expect(response.headers.get('location') ?? '').toMatch(/verify-request|check-mail/);
-    const mail = await waitForMailTo(stranger, since);
-    expect(mail.links.some((url) => url.includes('/api/auth/callback/email'))).toBe(false);
-    expect(mail.raw).toMatch(/invit/i);
-    expect(await mailsTo(stranger, since)).toHaveLength(1);
+    const since = new Date();
+    expect(await new HttpClient().requestSignInLink(stranger)).toMatch(/verify-request|check-mail/);
+    const mail = await waitForMailTo(stranger, { since });
+    expect(linksIn(mail).some((url) => url.includes('/api/auth/callback/email'))).toBe(false);
+    expect(mail.text).toMatch(/invit/i);
+    expect(await mailsTo(stranger, { since })).toHaveLength(1);
   });
 
   it('refuses an invalid address without sending mail', async () => {
-    const since = Date.now();
-    const response = await requestLink(new Client(), 'not-an-address');
-    expect(response.headers.get('location') ?? '').toMatch(/error=/);
-    expect(await mailsTo('not-an-address', since)).toHaveLength(0);
+    const since = new Date();
+    expect(await new HttpClient().requestSignInLink('not-an-address')).toMatch(/error=/);
+    expect(await mailsTo('not-an-address', { since })).toHaveLength(0);
   });
 });

@@ -1,10 +1,14 @@
 // Each role's view, in the browser: sign in as owner, author, coauthor and site admin, take screenshots of the
 // dashboard and the manuscript page (test-results/screenshots/<role>-*.png), and check the controls each may use.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { sqlClient } from '@/db';
-import { APP_URL, createManuscript, createUser, type TestUser } from '../api/web-support';
-import { launchBrowser, screenshot, signInThroughForm } from './web-browser';
+import { launchBrowser, newPage, screenshot } from '../helpers/browser';
+import { createTestManuscript } from '../helpers/test-manuscripts';
+import { createTestUser, type TestUser } from '../helpers/test-users';
+import { DashboardPage } from './pages/dashboard-page';
+import { ManuscriptPage } from './pages/manuscript-page';
+import { SignInPage } from './pages/sign-in-page';
 
 type Role = 'owner' | 'author' | 'coauthor' | 'admin';
 
@@ -14,11 +18,11 @@ let shared: { slug: string; title: string };
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  people.owner = await createUser({ label: 'olga' });
-  people.author = await createUser({ label: 'arvid' });
-  people.coauthor = await createUser({ label: 'chiara' });
-  people.admin = await createUser({ label: 'site-admin', isAdmin: true });
-  shared = await createManuscript({
+  people.owner = await createTestUser({ label: 'olga' });
+  people.author = await createTestUser({ label: 'arvid' });
+  people.coauthor = await createTestUser({ label: 'chiara' });
+  people.admin = await createTestUser({ label: 'site-admin', role: 'admin' });
+  shared = await createTestManuscript({
     title: 'Flux-forced degeneracies in a two-well trap',
     members: [
       { user: people.owner, role: 'owner' },
@@ -26,17 +30,13 @@ beforeAll(async () => {
       { user: people.coauthor, role: 'coauthor' },
     ],
   });
-  await createManuscript({ title: 'Geometric phases on a flux lattice', members: [{ user: people.owner, role: 'owner' }] });
+  await createTestManuscript({ title: 'Geometric phases on a flux lattice', owner: people.owner });
 });
 
 afterAll(async () => {
   await browser?.close();
   await sqlClient.end({ timeout: 5 });
 });
-
-async function count(page: Page, testId: string): Promise<number> {
-  return page.getByTestId(testId).count();
-}
 
 const EXPECTED: Record<Role, { badge: string | null; details: boolean; invite: boolean; ownerActions: boolean; roleSelects: boolean; admin: boolean }> = {
   owner: { badge: 'Owner', details: true, invite: true, ownerActions: true, roleSelects: true, admin: false },
@@ -47,63 +47,50 @@ const EXPECTED: Record<Role, { badge: string | null; details: boolean; invite: b
 
 describe.each(['owner', 'author', 'coauthor', 'admin'] as const)('%s', (role) => {
   it('sees a dashboard and a manuscript page with exactly the controls of the role', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, people[role].email);
+    const page = await newPage(browser);
+    await new SignInPage(page).signIn(people[role]);
     const expectation = EXPECTED[role];
 
     // Dashboard: my manuscripts with my role; everyone may start one; admins also see every manuscript.
-    await page.getByTestId(role === 'admin' ? 'manuscripts-all' : 'manuscripts-mine').waitFor();
-    expect(await count(page, 'new-manuscript')).toBe(1);
-    expect(await count(page, 'admin-section')).toBe(expectation.admin ? 1 : 0);
-    if (expectation.badge) {
-      const card = page.getByTestId('manuscripts-mine').getByTestId('manuscript-card').filter({ hasText: shared.title });
-      await expect(card.getByTestId('role-badge').textContent()).resolves.toBe(expectation.badge);
-    } else {
-      await page.getByText('No manuscripts yet').waitFor();
-    }
+    const dashboard = new DashboardPage(page);
+    await dashboard.waitForList(role === 'admin' ? 'all' : 'mine');
+    expect(await dashboard.controls()).toEqual({ newManuscript: 1, adminSection: expectation.admin ? 1 : 0 });
+    if (expectation.badge === null) await dashboard.waitForNoManuscripts();
+    else expect(await dashboard.myRoleOn(shared.title)).toBe(expectation.badge);
     await screenshot(page, `${role}-dashboard`);
 
     // Manuscript page.
-    await page.goto(`${APP_URL}/m/${shared.slug}`);
-    await page.getByTestId('members').waitFor();
-    expect(await count(page, 'details-form')).toBe(expectation.details ? 1 : 0);
-    expect(await count(page, 'invite-form')).toBe(expectation.invite ? 1 : 0);
-    expect(await page.locator('#owner-actions').count()).toBe(expectation.ownerActions ? 1 : 0);
-    expect((await count(page, 'member-role-select')) > 0).toBe(expectation.roleSelects);
-    if (role === 'admin') await page.locator('main').getByText('Site admin', { exact: true }).waitFor();
+    const manuscript = new ManuscriptPage(page);
+    await manuscript.open(shared.slug);
+    const controls = await manuscript.controls();
+    expect(controls).toMatchObject({
+      details: expectation.details ? 1 : 0,
+      invite: expectation.invite ? 1 : 0,
+      ownerActions: expectation.ownerActions ? 1 : 0,
+    });
+    expect(controls.roleSelects > 0).toBe(expectation.roleSelects);
+    if (role === 'admin') await manuscript.waitForSiteAdminMarker();
     await screenshot(page, `${role}-manuscript`);
-    await context.close();
+    await page.context().close();
   });
 });
 
 describe('small screens', () => {
   it('the manuscript page fits 375 px without sideways scrolling', async () => {
-    const context = await browser.newContext({ viewport: { width: 375, height: 812 } });
-    const page = await context.newPage();
-    await signInThroughForm(page, people.owner.email);
-    await page.goto(`${APP_URL}/m/${shared.slug}`);
-    await page.getByTestId('members').waitFor();
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
-    expect(overflow).toBeLessThanOrEqual(0);
+    const page = await newPage(browser, { viewport: { width: 375, height: 812 } });
+    await new SignInPage(page).signIn(people.owner);
+    const manuscript = new ManuscriptPage(page);
+    await manuscript.open(shared.slug);
+    expect(await manuscript.sidewaysOverflow()).toBeLessThanOrEqual(0);
     await screenshot(page, 'owner-manuscript-375px');
-    await context.close();
+    await page.context().close();
   });
 
   it('fields are reachable and labelled from the keyboard', async () => {
-    const context = await browser.newContext({ viewport: { width: 375, height: 812 } });
-    const page = await context.newPage();
-    await page.goto(`${APP_URL}/sign-in`);
-    // Tab from the top of the page (skip link, header links) until a form field has focus.
-    for (let step = 0; step < 6; step++) {
-      await page.keyboard.press('Tab');
-      if (await page.evaluate(() => document.activeElement?.tagName === 'INPUT')) break;
-    }
-    const focused = await page.evaluate(() => {
-      const element = document.activeElement as HTMLInputElement | null;
-      return element ? { tag: element.tagName, name: element.name, label: element.labels?.[0]?.textContent ?? null } : null;
-    });
-    expect(focused).toMatchObject({ tag: 'INPUT', name: 'email', label: 'E-mail' });
-    await context.close();
+    const page = await newPage(browser, { viewport: { width: 375, height: 812 } });
+    const signIn = new SignInPage(page);
+    await signIn.open();
+    expect(await signIn.tabToFirstField()).toMatchObject({ tag: 'INPUT', name: 'email', label: 'E-mail' });
+    await page.context().close();
   });
 });

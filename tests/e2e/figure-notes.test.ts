@@ -5,9 +5,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sqlClient } from '@/db';
-import { APP_URL, signInWithPassword, type AppClient } from '../helpers/app';
 import { launchBrowser, newPage, screenshot as saveScreenshot } from '../helpers/browser';
-import { createTestTeam, type TestTeam } from '../helpers/db';
+import { signedInClient, type HttpClient } from '../helpers/http-client';
+import { createTestTeam, type TestTeam } from '../helpers/test-manuscripts';
+import type { TestUser } from '../helpers/test-users';
+import { FigurePage } from './pages/figure-page';
+import { NoteEditorPage } from './pages/note-editor-page';
+import { NotePage } from './pages/note-page';
+import { SignInPage } from './pages/sign-in-page';
+import { SnapshotPage } from './pages/snapshot-page';
 
 /** A small spectral flow (unit disk, off-centre tube, h = 1/20): a few seconds of solver time. */
 const FLOW_PARAMS = {
@@ -31,7 +37,7 @@ const RUN_TIMEOUT = 120_000;
 
 let browser: Browser;
 let team: TestTeam;
-let author: AppClient;
+let author: HttpClient;
 let figureId: string;
 let noteId: string;
 let noteSlug: string;
@@ -40,7 +46,7 @@ const label = 'flux-flow';
 beforeAll(async () => {
   browser = await launchBrowser();
   team = await createTestTeam({ title: 'Figure notes e2e' });
-  author = await signInWithPassword(team.author.email, team.author.password);
+  author = await signedInClient(team.author);
   const figure = await author.post(`/api/manuscripts/${team.manuscript.id}/figures`, {
     label,
     kind: 'flux-sweep',
@@ -68,90 +74,69 @@ async function screenshot(page: Page, name: string): Promise<void> {
   await saveScreenshot(page, name);
 }
 
-function base(): string {
-  return `/m/${team.manuscript.slug}`;
-}
-
-/** A page signed in through next-auth's credentials endpoint (the browser context keeps the session cookie). */
-async function signedIn(email: string, password: string): Promise<Page> {
+/** A fresh browser page signed in as `user` through the sign-in form. */
+async function signedIn(user: TestUser): Promise<Page> {
   const page = await newPage(browser, { viewport: { width: 1360, height: 900 } });
-  const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  const answer = await page.request.post('/api/auth/callback/credentials', {
-    form: { csrfToken, email, password, callbackUrl: `${APP_URL}/` },
-  });
-  expect(answer.ok()).toBe(true);
-  const session = (await (await page.request.get('/api/auth/session')).json()) as { user?: { email?: string } };
-  expect(session.user?.email).toBe(email);
+  await new SignInPage(page).signIn(user);
   return page;
 }
 
 describe('figure notes in the browser', () => {
   it('an author edits a note, adds a block, runs, freezes v1 and v2 and compares them', async () => {
-    const page = await signedIn(team.author.email, team.author.password);
+    const page = await signedIn(team.author);
+    const slug = team.manuscript.slug;
 
     // Edit: the live preview renders the math; an import is refused with its line; the picker inserts a block.
-    await page.goto(`${base()}/notes/${noteSlug}/edit`);
-    const preview = page.getByTestId('note-preview');
-    await preview.locator('.katex').first().waitFor();
-    const source = page.getByTestId('note-source');
-    await source.fill(`${NOTE_SOURCE}\nimport data from "./levels.json"\n`);
-    await expect.poll(async () => page.getByTestId('note-problems').textContent(), { timeout: 20_000 }).toMatch(
-      /line 8: imports are not allowed/,
-    );
-    await source.fill(NOTE_SOURCE);
-    await page.getByTestId('note-problems').waitFor({ state: 'detached' });
-    await page.getByTestId('picker-figure').selectOption(label);
-    await page.getByTestId('insert-figure').click();
-    expect(await source.inputValue()).toContain(`<Figure label="${label}" />`);
-    await preview.locator(`[data-figure-preview="${label}"]`).waitFor();
-    await page.getByTestId('save-note').click();
-    await expect.poll(async () => page.getByTestId('save-status').textContent()).toMatch(/revision 2/);
+    const editor = new NoteEditorPage(page);
+    await editor.open(slug, noteSlug);
+    await editor.waitForMathInPreview();
+    await editor.writeSource(`${NOTE_SOURCE}\nimport data from "./levels.json"\n`);
+    await expect.poll(() => editor.problems(), { timeout: 20_000 }).toMatch(/line 8: imports are not allowed/);
+    await editor.writeSource(NOTE_SOURCE);
+    await editor.waitForNoProblems();
+    await editor.insertFigure(label);
+    expect(await editor.source()).toContain(`<Figure label="${label}" />`);
+    await editor.save();
+    await expect.poll(() => editor.saveStatus()).toMatch(/revision 2/);
     await screenshot(page, 'notes-editor');
 
     // The history shows both revisions and the inserted line in the diff.
-    await page.getByTestId('revision-diff').waitFor();
-    expect(await page.getByTestId('revision-diff').textContent()).toContain(`<Figure label="${label}" />`);
+    expect(await editor.revisionDiff()).toContain(`<Figure label="${label}" />`);
 
     // Read: the block has not run yet; start a run from the note and watch it.
-    await page.goto(`${base()}/notes/${noteSlug}`);
-    const block = page.locator(`[data-figure="${label}"]`);
-    await block.locator('[data-testid="run-panel"][data-ready]').waitFor();
-    await block.getByTestId('run-button').click();
-    await block.getByTestId('run-progress').waitFor();
-    await block.locator('[data-testid="chart"] svg').first().waitFor({ timeout: RUN_TIMEOUT });
+    const note = new NotePage(page);
+    await note.open(slug, noteSlug);
+    await note.runBlock(label, RUN_TIMEOUT);
     await screenshot(page, 'notes-live-block');
 
     // Figure page: freeze the finished run as v1.
-    await page.goto(`${base()}/figures/${label}`);
-    await page.locator('[data-testid="run-panel"][data-ready]').waitFor();
-    await page.getByTestId('freeze-button').click();
-    await expect.poll(async () => page.getByTestId('frozen-message').textContent()).toMatch(/v1/);
-    const v1Href = await page.getByTestId('frozen-message').locator('a').getAttribute('href');
+    const figure = new FigurePage(page);
+    await figure.open(slug, label);
+    await figure.waitForRunPanel();
+    await figure.freeze();
+    await expect.poll(() => figure.frozenMessage()).toMatch(/v1/);
+    const v1Href = await figure.frozenSnapshotHref();
     expect(v1Href).toMatch(/^\/s\/[0-9a-f-]{36}$/);
 
     // Change a parameter (4 levels instead of 6); Run saves it first, then computes anew; freeze v2.
-    const form = page.getByTestId('params-form');
-    await form.getByLabel('Levels', { exact: true }).fill('4');
-    await page.getByTestId('run-button').click();
-    await page.getByTestId('run-progress').waitFor();
-    await page.getByTestId('freeze-button').filter({ hasText: 'Freeze as snapshot' }).waitFor({ timeout: RUN_TIMEOUT });
-    await page.getByTestId('freeze-button').click();
-    await expect.poll(async () => page.getByTestId('frozen-message').textContent()).toMatch(/v2/);
-    await page.getByTestId('snapshot-v2').waitFor();
+    await figure.setParameter('Levels', '4');
+    await figure.runAndWait(RUN_TIMEOUT);
+    await figure.freeze();
+    await expect.poll(() => figure.frozenMessage()).toMatch(/v2/);
+    await figure.waitForSnapshot(2);
     await screenshot(page, 'notes-figure');
 
     // Compare v1 with v2: the changed parameter is listed and both results are drawn in one chart.
-    await page.getByTestId('compare-link').click();
-    await page.waitForURL(/\/compare\?a=1&b=2$/);
-    expect(await page.getByTestId('param-diff').textContent()).toContain('levels');
-    await page.locator('[data-testid="chart"] svg').first().waitFor();
+    await figure.compare();
+    expect(page.url()).toMatch(/\/compare\?a=1&b=2$/);
+    expect(await figure.parameterDiff()).toContain('levels');
     await screenshot(page, 'notes-compare');
 
     // The snapshot page: hash, citation and BibTeX.
-    await page.goto(v1Href!);
-    expect(await page.getByTestId('result-hash').textContent()).toMatch(/^[0-9a-f]{64}$/);
-    expect(await page.getByTestId('bibtex').textContent()).toMatch(/^@misc\{/);
-    await page.locator('[data-testid="chart"] svg').first().waitFor();
+    const snapshot = new SnapshotPage(page);
+    await snapshot.open(v1Href!);
+    expect(await snapshot.resultHash()).toMatch(/^[0-9a-f]{64}$/);
+    expect(await snapshot.bibtex()).toMatch(/^@misc\{/);
     await screenshot(page, 'notes-snapshot');
 
     // Pin v1 in the note next to the live block; the note shows both.
@@ -160,40 +145,40 @@ describe('figure notes in the browser', () => {
       json: { title: 'Spectral flow', source: `${NOTE_SOURCE}\n<Figure label="${label}" />\n\nAs frozen for the draft:\n\n<Figure label="${label}" version={1} />\n` },
     });
     expect(saved.status).toBe(200);
-    await page.goto(`${base()}/notes/${noteSlug}`);
-    await page.locator(`[data-figure="${label}"][data-version="1"] [data-testid="chart"] svg`).first().waitFor();
-    await page.locator(`[data-figure="${label}"][data-version="latest"] [data-testid="chart"] svg`).first().waitFor();
+    await note.open(slug, noteSlug);
+    await note.waitForChart(label, 1);
+    await note.waitForChart(label, 'latest');
     await screenshot(page, 'notes-note');
     await page.context().close();
   });
 
   it('a coauthor reads notes and figures but has no editing or run controls, and the API refuses them', async () => {
-    const page = await signedIn(team.coauthor.email, team.coauthor.password);
-    await page.goto(`${base()}/notes/${noteSlug}`);
-    await page.getByTestId('note-body').waitFor();
-    expect(await page.getByTestId('edit-note').count()).toBe(0);
-    expect(await page.getByTestId('run-button').count()).toBe(0);
+    const page = await signedIn(team.coauthor);
+    const slug = team.manuscript.slug;
+    const note = new NotePage(page);
+    await note.open(slug, noteSlug);
+    expect(await note.controls()).toEqual({ edit: 0, run: 0 });
 
-    await page.goto(`${base()}/figures/${label}`);
-    await page.getByTestId('params-readonly').waitFor();
-    expect(await page.getByTestId('params-form').count()).toBe(0);
-    expect(await page.getByTestId('run-button').count()).toBe(0);
-    expect(await page.getByTestId('freeze-button').count()).toBe(0);
+    const figure = new FigurePage(page);
+    await figure.open(slug, label);
+    await figure.waitForReadOnlyParameters();
+    expect(await figure.controls()).toEqual({ form: 0, readonly: 1, run: 0, freeze: 0 });
     await screenshot(page, 'notes-coauthor-figure');
 
     // The editor sends a coauthor back to the note.
-    await page.goto(`${base()}/notes/${noteSlug}/edit`);
+    await new NoteEditorPage(page).open(slug, noteSlug);
     await page.waitForURL(new RegExp(`/notes/${noteSlug}$`));
     await page.context().close();
 
-    const coauthor = await signInWithPassword(team.coauthor.email, team.coauthor.password);
+    const coauthor = await signedInClient(team.coauthor);
     expect((await coauthor.post(`/api/figures/${figureId}/runs`)).status).toBe(403);
     expect((await coauthor.fetch(`/api/notes/${noteId}`, { method: 'PUT', json: { title: 'x', source: 'y' } })).status).toBe(403);
     expect((await coauthor.post('/api/notes/preview', { manuscriptId: team.manuscript.id, source: '# x' })).status).toBe(403);
     // Reading is allowed: exports of a snapshot.
-    const snapshots = (await (await coauthor.get(`/api/figures/${figureId}/snapshots`)).json()) as { snapshots: { id: string }[] };
-    expect(snapshots.snapshots.length).toBe(2);
-    const svg = await coauthor.get(`/api/snapshots/${snapshots.snapshots[0].id}/export?format=svg&width=one-column`);
+    const snapshots = await coauthor.json('GET', `/api/figures/${figureId}/snapshots`);
+    expect(snapshots.status).toBe(200);
+    expect(snapshots.body.snapshots).toHaveLength(2);
+    const svg = await coauthor.get(`/api/snapshots/${snapshots.body.snapshots[0].id}/export?format=svg&width=one-column`);
     expect(svg.status).toBe(200);
     expect(await svg.text()).toMatch(/^<svg[\s\S]*width="8.6cm"/);
   });

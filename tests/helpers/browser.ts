@@ -3,7 +3,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { APP_URL } from './app';
+import { APP_URL } from './http-client';
 
 /** Flags that make chromium run headless as root in a container without network chatter (STACK.md §4). */
 export const CHROMIUM_ARGS = [
@@ -59,18 +59,4 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(SCREENSHOT_DIR, `${name.replace(/[^a-zA-Z0-9._-]+/g, '-')}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
-}
-
-/**
- * Sign in through the app's own sign-in page by filling the password form's e-mail and password fields and
- * submitting; waits until the URL leaves /sign-in.
- */
-export async function signInInBrowser(page: Page, email: string, password: string): Promise<void> {
-  await page.goto('/sign-in');
-  // Scope to the password form: the form itself is labelled by its heading, which also mentions the password.
-  const form = page.getByTestId('password-form');
-  await form.getByRole('textbox', { name: /e-?mail/i }).fill(email);
-  await form.locator('input[type="password"]').fill(password);
-  await form.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }

@@ -59,3 +59,16 @@ export function linkIn(message: Pick<StoredMessage, 'text'>, fragment: string): 
   if (!link) throw new Error(`no link containing "${fragment}" in:\n${message.text}`);
   return link;
 }
+
+/**
+ * Messages to `email` received at or after `since` (1 s tolerance for clock rounding), oldest first.
+ *
+ * @example
+ * expect(await mailsTo(stranger, { since: before })).toHaveLength(1);
+ */
+export async function mailsTo(email: string, { since }: { since: Date }): Promise<StoredMessage[]> {
+  const wanted = email.trim().toLowerCase();
+  const after = since.getTime() - 1000;
+  const messages = await listMessages();
+  return messages.filter((m) => m.to.some((to) => to.toLowerCase() === wanted) && m.receivedAt.getTime() >= after).reverse();
+}

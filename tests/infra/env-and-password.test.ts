@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { BCRYPT_COST, hashPassword, verifyPassword } from '@/lib/auth/password';
 import { DEFAULT_DATABASE_URL, DEFAULT_SMTP_URL, readEnv } from '@/lib/env';
+import { thrownBy } from '../helpers/thrown';
 
 describe('readEnv', () => {
   it('applies local defaults and treats empty strings as unset', () => {
@@ -27,14 +28,7 @@ describe('readEnv', () => {
   it('names every invalid variable in one error', () => {
     const bad = { DATABASE_URL: 'mysql://x/y', SMTP_URL: 'http://mail', PORT: '99999', NEXTAUTH_SECRET: 'short' };
     expect(() => readEnv(bad)).toThrow(/^Invalid environment variables:/);
-    const message = (() => {
-      try {
-        readEnv(bad);
-        return '';
-      } catch (error) {
-        return (error as Error).message;
-      }
-    })();
+    const message = (thrownBy(() => readEnv(bad)) as Error).message;
     expect(message).toMatch(/DATABASE_URL: must be a postgres:\/\/ or postgresql:\/\/ URL/);
     expect(message).toMatch(/SMTP_URL: must be an smtp:\/\/ or smtps:\/\/ URL/);
     expect(message).toMatch(/PORT: /);

@@ -3,40 +3,45 @@
 import { existsSync, statSync } from 'node:fs';
 import type { Browser } from 'playwright-core';
 import { afterAll, describe, expect, it } from 'vitest';
-import { APP_URL, AppClient, signInWithPassword } from '../helpers/app';
+import { sqlClient } from '@/db';
 import { launchBrowser, newPage, screenshot } from '../helpers/browser';
-import { createTestUser } from '../helpers/db';
+import { harnessEnv } from '../helpers/harness-env';
+import { APP_URL, HttpClient, signedInClient } from '../helpers/http-client';
+import { createTestUser } from '../helpers/test-users';
 
-const served = Boolean(process.env.APP_URL);
 let browser: Browser | undefined;
 
 afterAll(async () => {
   await browser?.close();
+  await sqlClient.end({ timeout: 5 });
 });
 
-describe.skipIf(!served)('test harness (needs `npm test`: APP_URL, MAIL_DIR, CHROMIUM_PATH)', () => {
-  it('serves the app on APP_URL', async () => {
+describe('test harness (`npm test` sets APP_URL, MAIL_DIR and CHROMIUM_PATH)', () => {
+  it('serves the app on APP_URL: / sends a visitor without a session to the sign-in page', async () => {
     const response = await fetch(APP_URL, { redirect: 'manual' });
-    expect(response.status).toBeLessThan(500);
+    expect(response.status).toBe(307);
+    expect(response.headers.get('location')).toMatch(/\/sign-in$/);
   });
 
   it('has a mailbox folder for the fake SMTP server', () => {
-    expect(existsSync(process.env.MAIL_DIR!)).toBe(true);
+    expect(existsSync(harnessEnv('MAIL_DIR'))).toBe(true);
   });
 
   it('signs a fresh user in with a password, and refuses a wrong one', async () => {
     const user = await createTestUser({ label: 'harness' });
-    const client = await signInWithPassword(user.email, user.password);
-    const session = await client.session();
-    expect(session.user?.email).toBe(user.email);
-    expect(await new AppClient().signInWithPassword(user.email, 'wrong password')).toBe(false);
+    const client = await signedInClient(user);
+    expect((await client.session())?.user?.email).toBe(user.email);
+    const refused = await new HttpClient().signInWithPassword(user.email, 'wrong password');
+    expect(refused.signedIn).toBe(false);
+    expect(refused.location).toMatch(/error=CredentialsSignin/);
   });
 
   it('opens the app in chromium and saves a screenshot', async () => {
     browser = await launchBrowser();
     const page = await newPage(browser);
     const response = await page.goto('/', { waitUntil: 'load' });
-    expect(response?.status()).toBeLessThan(500);
+    expect(response?.status()).toBe(200);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
     const file = await screenshot(page, 'harness-home');
     expect(statSync(file).size).toBeGreaterThan(1000);
   });

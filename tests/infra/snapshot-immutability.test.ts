@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { figures, manuscripts, results, snapshots, users } from '@/db/schema';
 import type { TaskSpec } from '@/lib/physics/schemas';
 import { testDb, uniqueTag } from '../helpers/db';
+import { rejectionOf } from '../helpers/thrown';
 
 /** A valid spectrum spec for rows that only need to exist; nothing computes it. */
 const ROW_SPEC: TaskSpec = { task: 'spectrum', well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 0.25 }, tubes: [], levels: 4 };
@@ -19,14 +20,12 @@ function pgError(error: unknown): { code?: string; message: string } {
 type Tx = Parameters<Parameters<typeof testDb.transaction>[0]>[0];
 
 async function refused(tx: Tx, statement: (sp: Tx) => Promise<unknown>): Promise<{ code?: string; message: string }> {
-  try {
-    await tx.transaction(async (sp) => {
+  const error = await rejectionOf(
+    tx.transaction(async (sp) => {
       await statement(sp);
-    });
-  } catch (error) {
-    return pgError(error);
-  }
-  throw new Error('the statement was not refused');
+    }),
+  );
+  return pgError(error);
 }
 
 describe('snapshot immutability (database trigger)', () => {

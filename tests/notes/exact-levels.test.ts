@@ -56,11 +56,13 @@ describe('Bessel zeros', () => {
     const nu = 0.3;
     const lower = besselJZeros(nu, 4);
     const upper = besselJZeros(nu + 1, 4);
+    expect(lower).toHaveLength(4);
+    expect(upper).toHaveLength(4);
     for (let k = 0; k < 4; k++) {
       expect(lower[k]).toBeLessThan(upper[k]);
-      if (k < 3) expect(upper[k]).toBeLessThan(lower[k + 1]);
       expect(Math.abs(besselJ(nu, lower[k]))).toBeLessThan(1e-13);
     }
+    for (let k = 0; k < 3; k++) expect(upper[k]).toBeLessThan(lower[k + 1]);
   });
 });
 

@@ -29,10 +29,9 @@ describe('convergence study', () => {
     expect(Math.abs(r.extrapolated[0] - exact)).toBeLessThan(Math.abs(finest - exact));
     const p = r.observedOrder[0];
     // Staircase walls: order 1 in theory, noisy from three grids (PHYSICS.md section 2).
-    if (p !== null) {
-      expect(p).toBeGreaterThan(0.3);
-      expect(p).toBeLessThan(2.5);
-    }
+    expect(p).not.toBeNull();
+    expect(p!).toBeGreaterThan(0.3);
+    expect(p!).toBeLessThan(2.5);
     expect(r.tubesMoved).toBe(false);
   });
 
@@ -45,6 +44,7 @@ describe('convergence study', () => {
     expect(r.order.source).toBe('rectangle with walls on sites');
     expect(r.order.value).toBe(2);
     // Lattice levels equal the closed form (8/h^2) sin^2(pi h / 2) with Nx + 1 = 1/h (PHYSICS.md section 2).
+    expect(r.grids).toHaveLength(3);
     for (const g of r.grids) expect(g.levels[0]).toBeCloseTo((8 / g.h ** 2) * Math.sin((Math.PI * g.h) / 2) ** 2, 8);
     expect(r.observedOrder[0]!).toBeGreaterThan(1.9);
     expect(r.observedOrder[0]!).toBeLessThan(2.1);

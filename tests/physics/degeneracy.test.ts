@@ -73,6 +73,7 @@ describe('degeneracy on mirror lines (PHYSICS.md section 3 pitfall: opposite par
     }
     // Mirror x -> -x maps one point onto the other.
     expect(r.points[0].at[0]).toBeCloseTo(-r.points[1].at[0], 8);
+    expect(r.blocks.length).toBeGreaterThan(0);
     expect(r.blocks.every((b) => b.reasons.includes('overlap'))).toBe(true);
   });
 });
@@ -86,6 +87,7 @@ describe('degeneracy of a non-symmetric polygon well', () => {
     expect(r.parityConsistent).toBe(true);
     const { xs, ys, gap } = r.gapMap;
     const h = 1 / 12;
+    expect(r.points.length).toBeGreaterThan(0);
     for (const p of r.points) {
       // The scanned position next to the point has the smallest gap of its 5 x 5 neighbourhood.
       const pi = xs.findIndex((x) => Math.abs(x - p.scanned[0]) < 1e-9);

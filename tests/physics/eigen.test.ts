@@ -65,6 +65,7 @@ describe('rectangle: closed-form lattice levels', () => {
     const expected = discreteRectangle(19, 14, h, 8);
     for (const method of ['dense', 'lobpcg'] as const) {
       const r = lowestEigenpairs(p.matrix(), 8, { method });
+      expect(r.values).toHaveLength(8);
       r.values.forEach((v, i) => expect(Math.abs(v - expected[i]) / expected[i], `${method} level ${i}`).toBeLessThan(1e-11));
     }
   });
@@ -75,6 +76,7 @@ describe('rectangle: closed-form lattice levels', () => {
     expect(p.lattice.n).toBe(20 * 15);
     const expected = discreteRectangle(20, 15, h, 6);
     const r = lowestEigenpairs(p.matrix(), 6, { method: 'lobpcg' });
+    expect(r.values).toHaveLength(6);
     r.values.forEach((v, i) => expect(Math.abs(v - expected[i]) / expected[i]).toBeLessThan(1e-11));
   });
 

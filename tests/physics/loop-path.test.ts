@@ -3,6 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
 import { boundaryOfSites, rasteriseLoop, signedArea2, siteSetProblem, sitesInsideLoop } from '@/lib/physics/loop-path';
+import { thrownBy } from '../helpers/thrown';
 
 const grid = { h: 0.1, offset: [0, 0] as [number, number] };
 
@@ -48,12 +49,9 @@ describe('loop rasterisation', () => {
 
   it('refuses empty, disconnected and holed site sets with a SpecError on "loop"', () => {
     expect(() => rasteriseLoop({ circle: { center: [0, 0], radius: 0.05 } }, grid)).toThrow(SpecError);
-    try {
-      rasteriseLoop({ circle: { center: [0, 0], radius: 0.05 } }, grid);
-    } catch (error) {
-      expect((error as SpecError).issues[0].path).toBe('loop');
-      expect((error as SpecError).message).toMatch(/encloses no grid site/);
-    }
+    const error = thrownBy(() => rasteriseLoop({ circle: { center: [0, 0], radius: 0.05 } }, grid)) as SpecError;
+    expect(error.issues[0].path).toBe('loop');
+    expect(error.message).toMatch(/encloses no grid site/);
     expect(siteSetProblem([[0, 0], [1, 1]])).toMatch(/not connected/);
     const ring: [number, number][] = [];
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) if (i !== 1 || j !== 1) ring.push([i, j]);

@@ -64,6 +64,7 @@ describe('parallel scan pool', () => {
     expect(bytes(one)).toBe(bytes(inline));
     expect(bytes(two)).toBe(bytes(inline));
     // Every edge overlap is defined and of modulus at most 1 (states are normalised).
+    expect(inline.reduce((total, r) => total + r.hRe.length, 0)).toBeGreaterThan(0);
     for (const r of inline) for (const v of r.hRe) expect(Math.abs(v)).toBeLessThanOrEqual(1 + 1e-9);
   });
 

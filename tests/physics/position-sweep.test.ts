@@ -37,6 +37,7 @@ describe('position sweep along a path', () => {
       }
       if (alpha === 0.5) expect(Math.abs(r.sorted[1][6] - r.sorted[0][6]) / r.sorted[0][6]).toBeLessThan(1e-8);
       // Each track sits on one level at every step: a reported one, or one above the reported window.
+      expect(r.tracked.length).toBeGreaterThan(0);
       for (let s = 0; s < n; s++) {
         for (const row of r.tracked) {
           const hit = r.sorted.some((level) => Math.abs(level[s] - row[s]) < 1e-9 * row[s]) || row[s] >= r.sorted[2][s];

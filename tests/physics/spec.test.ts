@@ -5,17 +5,14 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/schemas';
+import { thrownBy } from '../helpers/thrown';
 
 const disk = { disk: { center: [0, 0], radius: 1 } };
 
 function issues(input: unknown): { path: string; message: string }[] {
-  try {
-    parseTaskSpec(input);
-  } catch (error) {
-    expect(error).toBeInstanceOf(SpecError);
-    return (error as SpecError).issues;
-  }
-  throw new Error('expected a SpecError');
+  const error = thrownBy(() => parseTaskSpec(input));
+  expect(error).toBeInstanceOf(SpecError);
+  return (error as SpecError).issues;
 }
 
 describe('parseTaskSpec', () => {

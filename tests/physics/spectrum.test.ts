@@ -82,6 +82,7 @@ describe('states and determinism', () => {
     expect(states.phase).toBeNull();
     expect(states.re).toHaveLength(3);
     expect(states.re[0]).toHaveLength(r.grid.nx * r.grid.ny);
+    expect(states.density).toHaveLength(3);
     for (const d of states.density) expect(d.reduce((s, v) => s + v, 0)).toBeCloseTo(1, 10);
     // Outside the well every value is 0 (box site 0 is in the margin).
     expect(states.re[0][0]).toBe(0);

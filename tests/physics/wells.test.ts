@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { SpecError } from '@/lib/physics/errors';
 import { compilePotential } from '@/lib/physics/potential';
 import { compileWell } from '@/lib/physics/wells';
+import { thrownBy } from '../helpers/thrown';
 
 describe('shapes', () => {
   it('disk: strict inside, wall tolerance 1e-9', () => {
@@ -137,11 +138,7 @@ describe('mask wells', () => {
         },
       });
     expect(missing).toThrow(/gone\.png/);
-    try {
-      missing();
-    } catch (error) {
-      expect((error as SpecError).issues[0].path).toBe('well.mask.file');
-    }
+    expect((thrownBy(missing) as SpecError).issues[0].path).toBe('well.mask.file');
   });
 });
 

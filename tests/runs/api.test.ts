@@ -9,23 +9,23 @@ import { getSnapshotById } from '@/db/queries/snapshots';
 import { exportFigure } from '@/lib/export/export-figure';
 import { DEFAULT_ASPECT } from '@/lib/export/widths';
 import { RUN_QUEUE } from '@/lib/jobs/queue';
-import { signInWithPassword, type AppClient } from '../helpers/app';
-import { createTestTeam, type TestTeam } from '../helpers/db';
+import { HttpClient, signedInClient } from '../helpers/http-client';
+import { createTestTeam, type TestTeam } from '../helpers/test-manuscripts';
 import { SMALL_SPECTRUM, waitFor } from './fixtures';
 import { startWorker, type WorkerProcess } from './worker-process';
 
 let team: TestTeam;
-let author: AppClient;
-let coauthor: AppClient;
-let outsider: AppClient;
+let author: HttpClient;
+let coauthor: HttpClient;
+let outsider: HttpClient;
 let worker: WorkerProcess | null = null;
 const ids: { figure?: string; run?: string; snapshot?: string; note?: string } = {};
 
-describe.skipIf(!process.env.APP_URL)('figure-notes API', () => {
+describe('figure-notes API', () => {
   beforeAll(async () => {
     team = await createTestTeam({ title: 'Runs API' });
     [author, coauthor, outsider] = await Promise.all(
-      [team.author, team.coauthor, team.outsider].map((user) => signInWithPassword(user.email, user.password)),
+      [team.author, team.coauthor, team.outsider].map((user) => signedInClient(user)),
     );
     // The app queues on its default queue; this worker serves it (another worker of the test run may too).
     worker = startWorker(process.env.FLUXFOLIO_APP_RUN_QUEUE ?? RUN_QUEUE);
@@ -198,6 +198,6 @@ describe.skipIf(!process.env.APP_URL)('figure-notes API', () => {
       expect(await a.json()).toEqual(await b.json());
     }
     expect((await outsider.fetch('/api/figures/not-a-uuid')).status).toBe(400);
-    expect((await fetch(`${process.env.APP_URL}/api/figures/${ids.figure}`)).status).toBe(401);
+    expect((await new HttpClient().fetch(`/api/figures/${ids.figure}`)).status).toBe(401);
   });
 });

@@ -4,9 +4,11 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { db } from '@/db';
 import { createFigure } from '@/db/queries/figures';
-import { figures, manuscripts, memberships, users, type Figure, type MemberRole } from '@/db/schema';
+import { figures, type Figure, type Manuscript, type MemberRole } from '@/db/schema';
 import type { FigureParams } from '@/lib/figure-kinds/registry';
 import { createFigureSchema, type CreateFigureInput } from '@/lib/validations/figure';
+import { createTestManuscript } from '../helpers/test-manuscripts';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 /** A fast spectrum: unit disk, half tube at the centre, coarse grid (a few hundred unknowns). */
 export const SMALL_SPECTRUM = {
@@ -31,22 +33,14 @@ export const SLOW_FLUX_SWEEP = {
 } as const;
 
 export interface TestWorld {
-  user: { id: string; email: string };
-  manuscript: { id: string; slug: string; title: string };
+  user: TestUser;
+  manuscript: Manuscript;
 }
 
-/** A user who is `role` of a fresh manuscript. */
+/** A fresh user who is `role` of a fresh manuscript. */
 export async function createWorld(role: MemberRole = 'author'): Promise<TestWorld> {
-  const tag = randomUUID().slice(0, 8);
-  const [user] = await db
-    .insert(users)
-    .values({ email: `runs-${tag}@lab.example.org`, name: `Runs Tester ${tag}` })
-    .returning({ id: users.id, email: users.email });
-  const [manuscript] = await db
-    .insert(manuscripts)
-    .values({ title: `Flux tubes test ${tag}`, slug: `runs-test-${tag}`, createdById: user.id })
-    .returning({ id: manuscripts.id, slug: manuscripts.slug, title: manuscripts.title });
-  await db.insert(memberships).values({ manuscriptId: manuscript.id, userId: user.id, role });
+  const user = await createTestUser({ label: 'runs' });
+  const manuscript = await createTestManuscript({ title: 'Flux tubes test', members: [{ user, role }] });
   return { user, manuscript };
 }
 

@@ -15,6 +15,7 @@ import { snapshotBundle, snapshotBundleCsv, type SnapshotBundle } from '@/lib/sn
 import { freezeRun } from '@/lib/snapshots/freeze';
 import { BundleError, parseBundle, verifyBundle } from '@/lib/snapshots/verify-bundle';
 import { createTestFigure, createWorld, SMALL_SPECTRUM, setFigureParams, type TestWorld } from './fixtures';
+import { thrownBy } from '../helpers/thrown';
 
 let world: TestWorld;
 let figure: Figure;
@@ -179,10 +180,8 @@ describe('bundles', () => {
 
   it('rejects what is not a bundle, naming the fields', () => {
     expect(() => parseBundle({ format: 'something-else' })).toThrow(BundleError);
-    try {
-      parseBundle({ format: 'fluxfolio-snapshot-bundle', formatVersion: 1 });
-    } catch (error) {
-      expect((error as BundleError).issues.map((i) => i.path)).toEqual(expect.arrayContaining(['params', 'resultHash', 'data']));
-    }
+    const error = thrownBy(() => parseBundle({ format: 'fluxfolio-snapshot-bundle', formatVersion: 1 }));
+    expect(error).toBeInstanceOf(BundleError);
+    expect((error as BundleError).issues.map((i) => i.path)).toEqual(expect.arrayContaining(['params', 'resultHash', 'data']));
   });
 });

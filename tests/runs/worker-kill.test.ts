@@ -56,8 +56,10 @@ describe('worker killed during a run', () => {
     expect(died.signal).toBe('SIGKILL');
 
     const afterKill = await getRunById({ id: run.id });
-    expect(afterKill?.status).not.toBe('succeeded');
-    expect(afterKill?.resultId).toBeNull();
+    expect(afterKill).not.toBeNull();
+    // Still marked running, or already handed back to the queue by a worker's lost-run sweep (lib/jobs/lost-runs.ts).
+    expect(['running', 'queued']).toContain(afterKill!.status);
+    expect(afterKill!.resultId).toBeNull();
     const stored = await db.select({ n: sql<number>`count(*)::int` }).from(results).where(eq(results.inputHash, run.inputHash));
     expect(stored[0].n).toBe(0);
     const frozen = await db.select({ n: sql<number>`count(*)::int` }).from(snapshots).where(eq(snapshots.figureId, figure.id));

@@ -1,4 +1,4 @@
-// Everything the snapshot page shows, loaded in ONE function so that a later step can add a referee-token check here:
+// Everything the snapshot page shows, loaded in ONE function, so that its access check sits in one place:
 // the snapshot, its manuscript and authors, who froze it, its result data, its sibling versions and its citations.
 import { headers } from 'next/headers';
 import { notFound, redirect } from 'next/navigation';

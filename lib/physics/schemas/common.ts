@@ -52,7 +52,7 @@ export const stadiumShapeSchema = z.strictObject({
 });
 
 export const maskShapeSchema = z.strictObject({
-  /** Key of a PNG file, resolved by the caller (upload key or path next to the spec). */
+  /** Key of a PNG file, resolved by the caller (a path next to the spec). */
   file: z.string().min(1, 'file must name a PNG image').max(500, 'file name is too long'),
   extent: regionSchema,
   invert: z.boolean().optional(),
