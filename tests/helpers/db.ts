@@ -5,6 +5,11 @@ import { db } from '@/db';
 import { databaseUrl } from '@/db';
 import { manuscripts, memberships, users, type Manuscript, type ManuscriptStatus, type MemberRole } from '@/db/schema';
 
+/** The test database as the owner role (DATABASE_OWNER_URL from scripts/test.sh), for checks that need the owner. */
+export function ownerDatabaseUrl(): string {
+  return process.env.DATABASE_OWNER_URL || databaseUrl();
+}
+
 /** The dev database that tests must never write to. */
 const DEV_DATABASE_NAME = 'fluxfolio';
 
