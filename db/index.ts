@@ -1,10 +1,10 @@
 // The one PostgreSQL client (postgres.js) and Drizzle instance, reused across dev reloads via globalThis.
-// DATABASE_URL wins; otherwise the local default server started by scripts/pg.sh.
+// DATABASE_URL wins (`scripts/pg.sh url` prints the local one, as the app role); the default has no password.
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import * as schema from './schema';
 
-export const DEFAULT_DATABASE_URL = 'postgres://postgres@127.0.0.1:54329/fluxfolio';
+export const DEFAULT_DATABASE_URL = 'postgres://fluxfolio_app@127.0.0.1:54329/fluxfolio';
 
 export function databaseUrl(): string {
   return process.env.DATABASE_URL || DEFAULT_DATABASE_URL;

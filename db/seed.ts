@@ -1,8 +1,8 @@
 // Demo data for a fresh install: the invented group's four people, their draft manuscript with three memberships,
-// and the demo figure notes. Runs only on a database without users unless `--force`; every step is idempotent.
+// and the demo figure notes. Runs only on a database without any user (the demo accounts have published passwords).
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { count, eq } from 'drizzle-orm';
+import { count, eq, sql } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { hashPassword } from '@/lib/auth/password';
@@ -11,7 +11,7 @@ import type { Db } from './index';
 import * as schema from './schema';
 import { manuscripts, memberships, users, type Manuscript, type User } from './schema';
 
-const DEFAULT_DATABASE_URL = 'postgres://postgres@127.0.0.1:54329/fluxfolio';
+const DEFAULT_DATABASE_URL = 'postgres://fluxfolio_app@127.0.0.1:54329/fluxfolio';
 
 /** The seeded demo people, by their demo role. */
 export type DemoPeople = Record<DemoAccount['role'], User>;
@@ -25,7 +25,7 @@ export interface SeedSummary {
   snapshots?: number;
 }
 
-/** How many users the database has (the seed runs only on an empty one unless forced). */
+/** How many users the database has (the seed runs only on an empty one). */
 export async function countUsers(db: Db): Promise<number> {
   const [row] = await db.select({ n: count() }).from(users);
   return row?.n ?? 0;
@@ -100,20 +100,32 @@ export async function seedNotes(db: Db, manuscript: Manuscript, people: DemoPeop
   return seedFigureNotes({ db, manuscriptId: manuscript.id, authorId: people.author.id });
 }
 
+/** Advisory lock key of the seed ('ffseed' in ASCII), so that two starts at once cannot both seed. */
+const SEED_LOCK_KEY = 0x666673656564;
+
 /**
- * Seed the whole demo. Without `force` it does nothing when any user exists (a database in use is never touched).
+ * Seed the whole demo, only into a database without users: a database in use is never touched, because the demo
+ * accounts (a site admin among them) have passwords printed in the README. People and manuscript are written in one
+ * transaction under an advisory lock; the figure notes follow.
  *
  * @param db - the database to seed
- * @param options.force - seed even when users exist (existing demo rows are kept; missing ones are added)
  * @param options.notes - also seed the demo figure notes (default true)
  * @example
  * const summary = await seedDemo(db); // { seeded: true, people, manuscript, notes: 4, snapshots: 4 }
  */
-export async function seedDemo(db: Db, { force = false, notes = true } = {}): Promise<SeedSummary> {
-  const existing = await countUsers(db);
-  if (existing > 0 && !force) return { seeded: false, reason: `${existing} user(s) exist; use --force to add the demo anyway` };
-  const people = await seedPeople(db);
-  const manuscript = await seedManuscript(db, people);
+export async function seedDemo(db: Db, { notes = true } = {}): Promise<SeedSummary> {
+  const base = await db.transaction(async (tx) => {
+    await tx.execute(sql`SELECT pg_advisory_xact_lock(${SEED_LOCK_KEY})`);
+    const existing = await countUsers(tx as unknown as Db);
+    if (existing > 0) return { existing };
+    const people = await seedPeople(tx as unknown as Db);
+    const manuscript = await seedManuscript(tx as unknown as Db, people);
+    return { people, manuscript };
+  });
+  if ('existing' in base) {
+    return { seeded: false, reason: `the database already has ${base.existing} user(s); the demo is only seeded into an empty one` };
+  }
+  const { people, manuscript } = base;
   if (!notes) return { seeded: true, people, manuscript };
   try {
     const counts = await seedNotes(db, manuscript, people);
@@ -121,13 +133,14 @@ export async function seedDemo(db: Db, { force = false, notes = true } = {}): Pr
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     throw new Error(
-      `demo figure notes failed: ${reason}\n(people and manuscript are seeded; after fixing, add the notes with \`npm run db:seed -- --force\`)`,
+      `demo figure notes failed: ${reason}\n(people and manuscript are seeded; after fixing, drop the demo database ` +
+        '(`bash scripts/pg.sh drop-db fluxfolio`) and run `npm run app` again)',
       { cause: error },
     );
   }
 }
 
-const OPTIONS = ['--force', '--no-notes'];
+const OPTIONS = ['--no-notes'];
 
 async function main(argv: string[]): Promise<number> {
   const unknown = argv.filter((a) => !OPTIONS.includes(a));
@@ -135,10 +148,10 @@ async function main(argv: string[]): Promise<number> {
     console.error(`db/seed: unknown option ${unknown.join(' ')} (use ${OPTIONS.join(', ')})`);
     return 2;
   }
-  const sql = postgres(process.env.DATABASE_URL || DEFAULT_DATABASE_URL, { max: 2, onnotice: () => {} });
+  const client = postgres(process.env.DATABASE_URL || DEFAULT_DATABASE_URL, { max: 2, onnotice: () => {} });
   try {
-    const db = drizzle(sql, { schema }) as unknown as Db;
-    const summary = await seedDemo(db, { force: argv.includes('--force'), notes: !argv.includes('--no-notes') });
+    const db = drizzle(client, { schema }) as unknown as Db;
+    const summary = await seedDemo(db, { notes: !argv.includes('--no-notes') });
     if (!summary.seeded) {
       console.log(`[seed] skipped: ${summary.reason}`);
       return 0;
@@ -148,7 +161,7 @@ async function main(argv: string[]): Promise<number> {
     for (const account of DEMO_ACCOUNTS) console.log(`[seed]   ${account.role.padEnd(10)} ${account.email}  password: ${account.password}`);
     return 0;
   } finally {
-    await sql.end({ timeout: 5 });
+    await client.end({ timeout: 5 });
   }
 }
 

@@ -3,8 +3,8 @@
 import path from 'node:path';
 import { z } from 'zod';
 
-/** The local dev database served by scripts/pg.sh (kept equal to db/index.ts). */
-export const DEFAULT_DATABASE_URL = 'postgres://postgres@127.0.0.1:54329/fluxfolio';
+/** The local dev database served by scripts/pg.sh, as its app role (kept equal to db/index.ts; the password comes from `pg.sh url`). */
+export const DEFAULT_DATABASE_URL = 'postgres://fluxfolio_app@127.0.0.1:54329/fluxfolio';
 export const DEFAULT_SMTP_URL = 'smtp://127.0.0.1:2525?ignoreTLS=true';
 export const DEFAULT_MAIL_FROM = 'Fluxfolio <no-reply@fluxfolio.test>';
 
@@ -25,7 +25,7 @@ export const envSchema = z.object({
   DATABASE_URL: withDefault(postgresUrl, DEFAULT_DATABASE_URL),
   /** The public URL next-auth builds its links from. */
   NEXTAUTH_URL: withDefault(z.url(), 'http://127.0.0.1:3000'),
-  /** Secret for next-auth's JWTs; scripts/app.sh generates one into .data/secret when unset. */
+  /** Secret for next-auth's JWTs; required by `next start` (scripts/app.sh generates one into .data/secret when unset). */
   NEXTAUTH_SECRET: optional(z.string().min(16, 'must be at least 16 characters')),
   /** Public base URL for links in e-mails (falls back to NEXTAUTH_URL); the test runner sets it to the served app. */
   APP_URL: optional(z.url()),
@@ -36,7 +36,7 @@ export const envSchema = z.object({
   MAIL_DIR: withDefault(z.string().min(1), '.data/mail'),
   /** Port `next start` listens on. */
   PORT: withDefault(z.coerce.number().int().min(1).max(65535), 3000),
-  /** 1: show the dev mailbox page even in a production build (scripts/app.sh and scripts/test.sh set it). */
+  /** 1: turn the dev mailbox page on (site admins only; scripts/test.sh sets it, `npm run app` only when asked). */
   FLUXFOLIO_DEV_MAILBOX: withDefault(flag, '0'),
   /** Chromium for the browser tests (Debian's package). */
   CHROMIUM_PATH: withDefault(z.string().min(1), '/usr/bin/chromium'),
@@ -65,6 +65,23 @@ export function readEnv(source: Record<string, string | undefined> = process.env
 /** The current process's settings (parsed on every call: cheap, and tests may change process.env). */
 export function getEnv(): Env {
   return readEnv(process.env);
+}
+
+/**
+ * What keeps the server from starting in production: today only a missing NEXTAUTH_SECRET (without it next-auth
+ * would sign sessions with a key derived from public settings). Called from instrumentation.ts at server start.
+ *
+ * @param env - the settings (default: the current process's)
+ * @returns one line per problem, empty when the server may start
+ * @example
+ * serverStartProblems(readEnv({ NODE_ENV: 'production' })); // ['NEXTAUTH_SECRET is not set: ...']
+ */
+export function serverStartProblems(env: Env = getEnv()): string[] {
+  if (env.NODE_ENV !== 'production' || env.NEXTAUTH_SECRET) return [];
+  return [
+    'NEXTAUTH_SECRET is not set: the server refuses to start without it. Set it to a long random string ' +
+      '(e.g. `openssl rand -base64 32`); `npm run app` generates one into .data/secret.',
+  ];
 }
 
 /** MAIL_DIR as an absolute path (relative values are taken from the working directory, the project root). */

@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # `npm run app`: set up everything on a fresh machine (npm packages, PostgreSQL, migrations, demo seed, fake SMTP),
 # build when needed and serve Fluxfolio on http://127.0.0.1:${PORT:-3000}. Ctrl-C stops everything it started.
+# The dev mailbox page stays off unless FLUXFOLIO_DEV_MAILBOX=1 (then for site admins only).
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 install_cleanup_trap
@@ -14,17 +15,26 @@ ensure_node_modules
 require_free_port "$HOST" "$PORT" "the web server" PORT
 
 step "PostgreSQL"
+SEED_DEMO="${FLUXFOLIO_SEED_DEMO:-}"
 if [ -n "${DATABASE_URL:-}" ]; then
-  info "DATABASE_URL is set: using it (no local server started)"
+  info "DATABASE_URL is set: using it (no local server started; migrations as DATABASE_OWNER_URL when set)"
+  SEED_DEMO="${SEED_DEMO:-0}"
 else
   start_local_postgres
+  # The app connects as the app role (rows only); migrations run as the owner role.
   DATABASE_URL="$(bash scripts/pg.sh url fluxfolio)"
+  DATABASE_OWNER_URL="$(bash scripts/pg.sh owner-url fluxfolio)"
+  export DATABASE_OWNER_URL
+  SEED_DEMO="${SEED_DEMO:-1}"
 fi
 export DATABASE_URL
 
 step "Migrating and seeding"
 "$BIN/tsx" db/migrate.ts --create
-"$BIN/tsx" db/seed.ts
+unset DATABASE_OWNER_URL # nothing after the migrations needs the owner role
+# The demo seed only for the local demo database (or when asked with FLUXFOLIO_SEED_DEMO=1), and it adds nothing
+# to a database that already has users.
+if [ "$SEED_DEMO" = 1 ]; then "$BIN/tsx" db/seed.ts; else info "demo seed skipped (FLUXFOLIO_SEED_DEMO=1 adds it to an empty database)"; fi
 
 step "Mail"
 if [ -n "${SMTP_URL:-}" ]; then
@@ -39,7 +49,7 @@ fi
 
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://$HOST:$PORT}"
 export APP_URL="${APP_URL:-$NEXTAUTH_URL}"
-export FLUXFOLIO_DEV_MAILBOX="${FLUXFOLIO_DEV_MAILBOX:-1}"
+export FLUXFOLIO_DEV_MAILBOX="${FLUXFOLIO_DEV_MAILBOX:-0}"
 ensure_nextauth_secret
 
 if build_is_stale; then next_build; else step "Build is newer than the sources: skipping next build"; fi
@@ -58,8 +68,10 @@ info "Open:        $NEXTAUTH_URL"
 info "Sign in with (demo accounts, password sign-in):"
 "$BIN/tsx" --eval "import { DEMO_ACCOUNTS } from './db/demo-accounts.ts';
 for (const a of DEMO_ACCOUNTS) console.log('      ' + a.role.padEnd(11) + a.email.padEnd(52) + a.password);"
-if [ -n "${MAIL_DIR:-}" ]; then
-  info "Dev mailbox: $NEXTAUTH_URL/dev/mailbox (files in ${MAIL_DIR#"$ROOT"/})"
+if [ -n "${MAIL_DIR:-}" ] && [ "$FLUXFOLIO_DEV_MAILBOX" = 1 ]; then
+  info "Dev mailbox: $NEXTAUTH_URL/dev/mailbox (site admins only; files in ${MAIL_DIR#"$ROOT"/})"
+elif [ -n "${MAIL_DIR:-}" ]; then
+  info "Mail:        files in ${MAIL_DIR#"$ROOT"/} (FLUXFOLIO_DEV_MAILBOX=1 npm run app shows them to site admins)"
 fi
 info "Logs:        .data/logs/   Stop: Ctrl-C"
 

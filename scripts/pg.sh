@@ -1,6 +1,9 @@
 #!/usr/bin/env bash
-# Local PostgreSQL for Fluxfolio: install (Debian), initialise, start on 127.0.0.1, stop, status, and create/drop databases.
-# Usage: scripts/pg.sh start|stop|status|url [NAME]|ensure-db NAME|drop-db NAME   (env: PGPORT, PGDATA, PG_BIN, FLUXFOLIO_PG_FAST, FLUXFOLIO_PG_MARKER)
+# Local PostgreSQL for Fluxfolio: install (Debian), initialise with password roles, start on 127.0.0.1, stop, status,
+# and create/drop databases. TCP needs a password (scram-sha-256); the superuser only logs in over the Unix socket as the
+# cluster's OS owner. Roles: fluxfolio_owner (migrations, owns the tables) and fluxfolio_app (the app: rows only).
+# Usage: scripts/pg.sh start|stop|status|url [NAME]|owner-url [NAME]|ensure-db NAME|drop-db NAME
+#   (env: PGPORT, PGDATA, PG_BIN, FLUXFOLIO_PG_FAST, FLUXFOLIO_PG_MARKER)
 set -euo pipefail
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
@@ -9,6 +12,10 @@ PG_PORT="${PGPORT:-54329}"
 PG_SUPERUSER=postgres
 PG_SOCKET_DIR=/tmp
 DEFAULT_DB=fluxfolio
+OWNER_ROLE=fluxfolio_owner
+APP_ROLE=fluxfolio_app
+# The role passwords live in the cluster's data directory (mode 0600), generated at first start.
+ROLES_FILE_NAME=fluxfolio-roles.env
 
 log() { printf '[pg] %s\n' "$*"; }
 die() { printf '[pg] error: %s\n' "$1" >&2; exit "${2:-1}"; }
@@ -73,8 +80,109 @@ port_answers() {
 
 write_marker() { [ -n "${FLUXFOLIO_PG_MARKER:-}" ] && printf '%s\n' "$1" >"$FLUXFOLIO_PG_MARKER"; return 0; }
 
+# psql as the superuser over the Unix socket (peer authentication: the OS user that owns the cluster). PSQL_DB picks
+# the database (default postgres). SQL may come on stdin, which keeps passwords out of the process list.
 psql_admin() {
-  "$PG_BIN/psql" -X -v ON_ERROR_STOP=1 -q -h "$PG_HOST" -p "$PG_PORT" -U "$PG_SUPERUSER" -d postgres "$@"
+  as_pg "$PG_BIN/psql" -X -v ON_ERROR_STOP=1 -q -h "$PG_SOCKET_DIR" -p "$PG_PORT" -U "$PG_SUPERUSER" -d "${PSQL_DB:-postgres}" "$@"
+}
+
+# The data directory of the server on the port: ours, or (another clone's) as the server reports it.
+server_data_dir() {
+  if ours_running; then printf '%s\n' "$PG_DATA"; return 0; fi
+  psql_admin -tAc 'SHOW data_directory' 2>/dev/null ||
+    die "cannot log in to the PostgreSQL server on port $PG_PORT as its owner (another user's server?); choose another PGPORT or set DATABASE_URL"
+}
+
+random_password() { od -An -tx1 -N24 /dev/urandom | tr -d ' \n'; }
+
+# ensure_roles_file DIR: create DIR/fluxfolio-roles.env with two fresh passwords unless it exists (mode 0600).
+ensure_roles_file() {
+  local file="$1/$ROLES_FILE_NAME"
+  [ -s "$file" ] && return 0
+  (umask 077 && printf 'OWNER_PASSWORD=%s\nAPP_PASSWORD=%s\n' "$(random_password)" "$(random_password)" >"$file")
+  chmod 600 "$file"
+  log "generated passwords for $OWNER_ROLE and $APP_ROLE into $file"
+}
+
+# role_password OWNER|APP: the password from the roles file of this port's cluster.
+role_password() {
+  local file="$PG_DATA/$ROLES_FILE_NAME"
+  if [ ! -s "$file" ] && port_answers; then file="$(server_data_dir)/$ROLES_FILE_NAME"; fi
+  [ -s "$file" ] || die "no role passwords yet ($file): run scripts/pg.sh start first"
+  sed -n "s/^$1_PASSWORD=//p" "$file"
+}
+
+# pg_hba.conf and pg_ident.conf: passwords on TCP, the superuser only over the socket for the cluster's OS owner.
+write_auth_config() {
+  local dir="$1" hba ident changed=0
+  hba="# Written by scripts/pg.sh: password (scram-sha-256) on 127.0.0.1; the superuser only over the Unix socket.
+local   all   $PG_SUPERUSER                   peer map=fluxfolio
+host    all   all            127.0.0.1/32   scram-sha-256
+host    all   all            ::1/128        scram-sha-256"
+  ident="# Written by scripts/pg.sh: OS users that may log in as $PG_SUPERUSER over the socket.
+fluxfolio   $PG_SUPERUSER   $PG_SUPERUSER"
+  if ! is_root && [ "$(id -un)" != "$PG_SUPERUSER" ]; then ident="$ident
+fluxfolio   $(id -un)   $PG_SUPERUSER"; fi
+  if [ "$(cat "$dir/pg_hba.conf" 2>/dev/null)" != "$hba" ]; then printf '%s\n' "$hba" >"$dir/pg_hba.conf"; changed=1; fi
+  if [ "$(cat "$dir/pg_ident.conf" 2>/dev/null)" != "$ident" ]; then printf '%s\n' "$ident" >"$dir/pg_ident.conf"; changed=1; fi
+  if is_root; then chown "$PG_SUPERUSER:" "$dir/pg_hba.conf" "$dir/pg_ident.conf"; fi
+  chmod 600 "$dir/pg_hba.conf" "$dir/pg_ident.conf"
+  [ "$changed" -eq 1 ]
+}
+
+# Give every object of a database's schemas to its role: public and drizzle to the owner role, pgboss to the app role
+# (pg-boss alters its own tables when it adds a queue). Objects owned through a table (serial sequences, indexes) follow it.
+transfer_ownership_sql() {
+  cat <<SQL
+SELECT format('ALTER DATABASE %I OWNER TO $OWNER_ROLE', current_database())
+  WHERE pg_get_userbyid((SELECT datdba FROM pg_database WHERE datname = current_database())) <> '$OWNER_ROLE' \gexec
+CREATE TEMP VIEW fluxfolio_target AS
+  SELECT n.oid, n.nspname, CASE WHEN n.nspname = 'pgboss' THEN '$APP_ROLE' ELSE '$OWNER_ROLE' END AS role
+  FROM pg_namespace n WHERE n.nspname IN ('public', 'drizzle', 'pgboss');
+SELECT format('ALTER SCHEMA %I OWNER TO %I', t.nspname, t.role) FROM fluxfolio_target t JOIN pg_namespace n ON n.oid = t.oid
+  WHERE pg_get_userbyid(n.nspowner) NOT IN (t.role, 'pg_database_owner') \gexec
+SELECT format('ALTER %s %s OWNER TO %I',
+    CASE c.relkind WHEN 'S' THEN 'SEQUENCE' WHEN 'v' THEN 'VIEW' WHEN 'm' THEN 'MATERIALIZED VIEW' WHEN 'f' THEN 'FOREIGN TABLE' ELSE 'TABLE' END,
+    c.oid::regclass, t.role)
+  FROM pg_class c JOIN fluxfolio_target t ON t.oid = c.relnamespace
+  WHERE c.relkind IN ('r', 'p', 'S', 'v', 'm', 'f') AND pg_get_userbyid(c.relowner) <> t.role
+    AND (c.relkind <> 'S' OR NOT EXISTS (SELECT 1 FROM pg_depend d WHERE d.classid = 'pg_class'::regclass AND d.objid = c.oid AND d.objsubid = 0
+                    AND d.refclassid = 'pg_class'::regclass AND d.deptype IN ('a', 'i'))) \gexec
+SELECT format('ALTER TYPE %s OWNER TO %I', ty.oid::regtype, t.role)
+  FROM pg_type ty JOIN fluxfolio_target t ON t.oid = ty.typnamespace
+  WHERE ty.typtype IN ('e', 'd') AND pg_get_userbyid(ty.typowner) <> t.role \gexec
+SELECT format('ALTER ROUTINE %s OWNER TO %I', p.oid::regprocedure, t.role)
+  FROM pg_proc p JOIN fluxfolio_target t ON t.oid = p.pronamespace
+  WHERE p.prokind IN ('f', 'p') AND pg_get_userbyid(p.proowner) <> t.role \gexec
+SQL
+}
+
+# Create or update the two roles with the passwords of DIR, hand Fluxfolio's databases of an earlier (trust-only)
+# version to them, then switch authentication to passwords and reload. Idempotent: every start runs it.
+ensure_roles() {
+  local dir="$1" db
+  ensure_roles_file "$dir"
+  local owner_password app_password
+  owner_password="$(sed -n 's/^OWNER_PASSWORD=//p' "$dir/$ROLES_FILE_NAME")"
+  app_password="$(sed -n 's/^APP_PASSWORD=//p' "$dir/$ROLES_FILE_NAME")"
+  psql_admin <<SQL
+SELECT 'CREATE ROLE $OWNER_ROLE' WHERE NOT EXISTS (SELECT 1 FROM pg_roles WHERE rolname = '$OWNER_ROLE') \gexec
+SELECT 'CREATE ROLE $APP_ROLE' WHERE NOT EXISTS (SELECT 1 FROM pg_roles WHERE rolname = '$APP_ROLE') \gexec
+ALTER ROLE $OWNER_ROLE WITH LOGIN CREATEDB NOSUPERUSER NOCREATEROLE NOREPLICATION NOBYPASSRLS PASSWORD '$owner_password';
+ALTER ROLE $APP_ROLE WITH LOGIN NOCREATEDB NOSUPERUSER NOCREATEROLE NOREPLICATION NOBYPASSRLS PASSWORD '$app_password';
+SET client_min_messages = warning;
+-- The owner may act for the app role: hand pg-boss's schema over to it, and close its sessions when dropping a database.
+GRANT $APP_ROLE TO $OWNER_ROLE;
+SQL
+  for db in $(psql_admin -tAc "SELECT datname FROM pg_database WHERE datname LIKE 'fluxfolio%' AND NOT datistemplate
+                               AND pg_get_userbyid(datdba) <> '$OWNER_ROLE'"); do
+    log "handing database $db of an earlier version to $OWNER_ROLE (pg-boss tables to $APP_ROLE)"
+    transfer_ownership_sql | PSQL_DB="$db" psql_admin
+  done
+  if write_auth_config "$dir"; then
+    psql_admin -tAc 'SELECT pg_reload_conf()' >/dev/null
+    log "authentication: passwords (scram-sha-256) on $PG_HOST, superuser over the socket only"
+  fi
 }
 
 check_db_name() {
@@ -89,10 +197,12 @@ cmd_start() {
   PG_DATA="$(resolve_pgdata)"
   if ours_running; then
     log "already running on $PG_HOST:$PG_PORT (data $PG_DATA): nothing to do"
+    ensure_roles "$PG_DATA"
     write_marker reused; return 0
   fi
   if port_answers; then
     log "a PostgreSQL server (another clone's or a system one) already answers on $PG_HOST:$PG_PORT: using it"
+    ensure_roles "$(server_data_dir)"
     write_marker other; return 0
   fi
   mkdir -p "$PG_DATA"
@@ -103,7 +213,9 @@ cmd_start() {
   fi
   if [ ! -f "$PG_DATA/PG_VERSION" ]; then
     log "initialising a new cluster in $PG_DATA"
-    as_pg "$PG_BIN/initdb" -D "$PG_DATA" -U "$PG_SUPERUSER" --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
+    as_pg "$PG_BIN/initdb" -D "$PG_DATA" -U "$PG_SUPERUSER" --auth-local=peer --auth-host=scram-sha-256 \
+      -E UTF8 --locale=C.UTF-8 >/dev/null
+    write_auth_config "$PG_DATA" || true
   fi
   local opts="-c listen_addresses=$PG_HOST -p $PG_PORT -k $PG_SOCKET_DIR"
   if [ "${FLUXFOLIO_PG_FAST:-0}" = 1 ]; then
@@ -114,8 +226,9 @@ cmd_start() {
     tail -n 20 "$PG_DATA/server.log" >&2 || true
     die "PostgreSQL did not start (log: $PG_DATA/server.log)"
   fi
+  ensure_roles "$PG_DATA"
   write_marker started
-  log "ready: $(cmd_url "$DEFAULT_DB")"
+  log "ready: $(cmd_url "$DEFAULT_DB" | sed 's/:[^:@]*@/:***@/')"
 }
 
 cmd_stop() {
@@ -137,7 +250,9 @@ cmd_status() {
   log "down (port $PG_PORT, data $PG_DATA)"; return 3
 }
 
-cmd_url() { printf 'postgres://%s@%s:%s/%s\n' "$PG_SUPERUSER" "$PG_HOST" "$PG_PORT" "${1:-$DEFAULT_DB}"; }
+# The URL the app uses (app role) and the one migrations use (owner role); the passwords are hex, safe in a URL.
+cmd_url() { printf 'postgres://%s:%s@%s:%s/%s\n' "$APP_ROLE" "$(role_password APP)" "$PG_HOST" "$PG_PORT" "${1:-$DEFAULT_DB}"; }
+cmd_owner_url() { printf 'postgres://%s:%s@%s:%s/%s\n' "$OWNER_ROLE" "$(role_password OWNER)" "$PG_HOST" "$PG_PORT" "${1:-$DEFAULT_DB}"; }
 
 cmd_ensure_db() {
   check_db_name "${1:-}"
@@ -146,7 +261,7 @@ cmd_ensure_db() {
   if [ "$(psql_admin -tAc "SELECT 1 FROM pg_database WHERE datname = '$1'")" = 1 ]; then
     log "database $1 exists"
   else
-    psql_admin -c "CREATE DATABASE \"$1\""
+    psql_admin -c "CREATE DATABASE \"$1\" OWNER $OWNER_ROLE"
     log "created database $1"
   fi
 }
@@ -162,7 +277,8 @@ cmd_drop_db() {
 
 usage() {
   cat >&2 <<USAGE
-usage: scripts/pg.sh start|stop|status|url [NAME]|ensure-db NAME|drop-db NAME
+usage: scripts/pg.sh start|stop|status|url [NAME]|owner-url [NAME]|ensure-db NAME|drop-db NAME
+  url: the app role's URL (rows only); owner-url: the owner role's URL (migrations)
   PGPORT (default 54329), PGDATA (default .data/pg, or /var/tmp/fluxfolio-pg-<hash> when the postgres user cannot reach the project),
   FLUXFOLIO_PG_FAST=1 (fsync off: tests only), FLUXFOLIO_PG_MARKER=FILE (start writes there: 'started', 'reused' (ours, already up) or 'other' (another server))
 USAGE
@@ -174,7 +290,8 @@ case "${1:-}" in
   start) exec 9>"/tmp/fluxfolio-pg-$PG_PORT.lock"; flock 9; cmd_start ;;
   stop) exec 9>"/tmp/fluxfolio-pg-$PG_PORT.lock"; flock 9; cmd_stop ;;
   status) cmd_status ;;
-  url) cmd_url "${2:-}" ;;
+  url) PG_BIN="$(find_pg_bin)"; cmd_url "${2:-}" ;;
+  owner-url) PG_BIN="$(find_pg_bin)"; cmd_owner_url "${2:-}" ;;
   ensure-db) cmd_ensure_db "${2:-}" ;;
   drop-db) cmd_drop_db "${2:-}" ;;
   *) usage ;;

@@ -1,14 +1,18 @@
 // Local fake SMTP server for development and tests: accepts every message on 127.0.0.1 and stores it in MAIL_DIR
 // as <timestamp>-<id>.json ({id,from,to,subject,text,html,date}) plus the raw .eml. Never relays anything.
+// Sign-in links are secrets: the folder is kept 0700 and every file is written 0600 (readable by this user only).
 // Usage: node scripts/smtp.mjs [--host 127.0.0.1] [--port 2525] [--dir .data/mail]   (env: SMTP_HOST, SMTP_PORT, MAIL_DIR)
 import { randomBytes } from 'node:crypto';
-import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { chmodSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
 const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
+/** Owner-only permissions: messages carry one-time sign-in links. */
+const FILE_MODE = 0o600;
+const DIR_MODE = 0o700;
 
 function fail(message) {
   console.error(`[smtp] ${message}`);
@@ -42,10 +46,12 @@ function nextStem(id) {
   return `${time}-${String(sequence).padStart(6, '0')}-${id}`;
 }
 
-/** Write through a temporary name, so that readers never see half a file. */
+/** Write through a temporary name (mode 0600), so that readers never see half a file. */
 function writeAtomically(file, content) {
   const tmp = `${file}.tmp`;
-  writeFileSync(tmp, content);
+  rmSync(tmp, { force: true }); // a stale file would keep its old mode
+  writeFileSync(tmp, content, { mode: FILE_MODE, flag: 'wx' });
+  chmodSync(tmp, FILE_MODE); // whatever the umask
   renameSync(tmp, file);
 }
 
@@ -67,7 +73,8 @@ function store(dir, raw, parsed, envelope) {
 }
 
 const { host, port, dir } = readOptions();
-mkdirSync(dir, { recursive: true });
+mkdirSync(dir, { recursive: true, mode: DIR_MODE });
+chmodSync(dir, DIR_MODE); // also when the folder already existed
 
 const server = new SMTPServer({
   name: 'fluxfolio-dev-smtp',

@@ -20,13 +20,15 @@ require_free_port "$HOST" "$APP_PORT" "the test web server" TEST_APP_PORT
 require_free_port "$HOST" "$SMTP_PORT" "the test fake SMTP server" TEST_SMTP_PORT
 
 step "PostgreSQL for the tests"
+with_database() { node -e 'const u = new URL(process.argv[1]); u.pathname = "/" + process.argv[2]; console.log(u.toString())' "$1" "$2"; }
 if [ -n "${TEST_DATABASE_URL:-}" ]; then
-  info "TEST_DATABASE_URL is set: using it"
+  info "TEST_DATABASE_URL is set: using it (migrations as TEST_DATABASE_OWNER_URL when set)"
   DATABASE_URL="$TEST_DATABASE_URL"
+  DATABASE_OWNER_URL="${TEST_DATABASE_OWNER_URL:-$TEST_DATABASE_URL}"
 elif [ -n "${DATABASE_URL:-}" ]; then
   info "DATABASE_URL is set: using its server with the database $TEST_DATABASE_NAME"
-  DATABASE_URL="$(node -e 'const u = new URL(process.argv[1]); u.pathname = "/" + process.argv[2]; console.log(u.toString())' \
-    "$DATABASE_URL" "$TEST_DATABASE_NAME")"
+  DATABASE_OWNER_URL="$(with_database "${DATABASE_OWNER_URL:-$DATABASE_URL}" "$TEST_DATABASE_NAME")"
+  DATABASE_URL="$(with_database "$DATABASE_URL" "$TEST_DATABASE_NAME")"
 else
   start_local_postgres
   if [ "$PG_SERVER_IS_OTHER" -eq 1 ] && [ -z "$TEST_DATABASE_NAME_GIVEN" ]; then
@@ -35,8 +37,11 @@ else
     info "the server belongs to another clone: using the database $TEST_DATABASE_NAME"
   fi
   DATABASE_URL="$(bash scripts/pg.sh url "$TEST_DATABASE_NAME")"
+  DATABASE_OWNER_URL="$(bash scripts/pg.sh owner-url "$TEST_DATABASE_NAME")"
 fi
-export DATABASE_URL TEST_DATABASE_NAME
+# The app, the worker and the tests' fixtures connect as DATABASE_URL (the app role); migrations and the tests that
+# need the owner (scratch databases, the trigger checks) use DATABASE_OWNER_URL.
+export DATABASE_URL DATABASE_OWNER_URL TEST_DATABASE_NAME
 info "test database: $TEST_DATABASE_NAME (dropped, recreated and migrated)"
 "$BIN/tsx" db/migrate.ts --recreate
 
@@ -68,11 +73,11 @@ export FLUXFOLIO_DEV_MAILBOX=1
 
 if [ -f scripts/worker.ts ]; then
   step "Job worker against the test database"
-  start_service worker "$ROOT/.data/logs/test-worker.log" "$BIN/tsx" scripts/worker.ts
+  start_service worker "$ROOT/.data/logs/test-worker.log" env -u DATABASE_OWNER_URL "$BIN/tsx" scripts/worker.ts
 fi
 
 step "Test web server on $APP_URL"
-start_service web "$ROOT/.data/logs/test-web.log" "$BIN/next" start -H "$HOST" -p "$APP_PORT"
+start_service web "$ROOT/.data/logs/test-web.log" env -u DATABASE_OWNER_URL "$BIN/next" start -H "$HOST" -p "$APP_PORT"
 wait_for_port web "$HOST" "$APP_PORT" 60
 
 step "vitest run $*"

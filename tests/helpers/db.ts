@@ -2,6 +2,11 @@
 // against the dev database, and unique tags for e-mails and slugs so rows of different tests and runs never collide.
 import { databaseUrl, db } from '@/db';
 
+/** The test database as the owner role (DATABASE_OWNER_URL from scripts/test.sh), for checks that need the owner. */
+export function ownerDatabaseUrl(): string {
+  return process.env.DATABASE_OWNER_URL || databaseUrl();
+}
+
 /** The dev database that tests must never write to. */
 const DEV_DATABASE_NAME = 'fluxfolio';
 

@@ -3,8 +3,9 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { sql } from 'drizzle-orm';
+import postgres from 'postgres';
 import { describe, expect, it } from 'vitest';
-import { testDb } from '../helpers/db';
+import { ownerDatabaseUrl, testDb } from '../helpers/db';
 
 const TABLES = [
   'users',
@@ -35,8 +36,14 @@ describe('migrations', () => {
     const journal = JSON.parse(readFileSync(path.resolve('db/migrations/meta/_journal.json'), 'utf8')) as {
       entries: unknown[];
     };
-    const [row] = await testDb.execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM drizzle.__drizzle_migrations`);
-    expect(row.n).toBe(journal.entries.length);
+    // drizzle's bookkeeping belongs to the owner role; the app role cannot read it.
+    const owner = postgres(ownerDatabaseUrl(), { max: 1, onnotice: () => {} });
+    try {
+      const [row] = await owner<{ n: number }[]>`SELECT count(*)::int AS n FROM drizzle.__drizzle_migrations`;
+      expect(row.n).toBe(journal.entries.length);
+    } finally {
+      await owner.end({ timeout: 5 });
+    }
   });
 
   it('installed the snapshot immutability triggers', async () => {

@@ -1,5 +1,6 @@
-// The demo seed on a scratch database of its own: four invented people with working passwords, one draft manuscript
-// with three memberships (the site admin is not a member), and running it again changes nothing.
+// The demo seed on scratch databases of their own (made and migrated as the owner role, seeded as the app role): four
+// invented people with working passwords, one draft manuscript with three memberships (the site admin is not a member);
+// a second run and a database that already has any user are left untouched.
 import { spawnSync } from 'node:child_process';
 import { and, count, eq } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/postgres-js';
@@ -11,16 +12,25 @@ import { dropDatabase, ensureDatabase } from '@/db/ensure-database';
 import { migrateDatabase } from '@/db/migrate';
 import * as schema from '@/db/schema';
 import { manuscripts, memberships, users } from '@/db/schema';
+import { roleOf } from '@/db/app-role';
+import { databaseUrl } from '@/db';
 import { seedDemo } from '@/db/seed';
 import { verifyPassword } from '@/lib/auth/password';
-import { testDatabaseName } from '../helpers/db';
+import { ownerDatabaseUrl, testDatabaseName } from '../helpers/db';
 
-const scratchName = `fluxfolio_seedtest_${process.pid}`;
-const scratchUrl = (() => {
-  const url = new URL(process.env.DATABASE_URL || 'postgres://postgres@127.0.0.1:54329/fluxfolio_test');
-  url.pathname = `/${scratchName}`;
+/** The test server's URL for another database, as the owner (create, migrate) or as the app role (seed). */
+function scratch(name: string, base: string): string {
+  const url = new URL(base);
+  url.pathname = `/${name}`;
   return url.toString();
-})();
+}
+const scratchName = `fluxfolio_seedtest_${process.pid}`;
+const scratchUrl = scratch(scratchName, databaseUrl());
+const scratchOwnerUrl = scratch(scratchName, ownerDatabaseUrl());
+const inUseName = `fluxfolio_seedinuse_${process.pid}`;
+const inUseUrl = scratch(inUseName, databaseUrl());
+const inUseOwnerUrl = scratch(inUseName, ownerDatabaseUrl());
+const appRole = roleOf(databaseUrl());
 
 let client: postgres.Sql;
 let db: Db;
@@ -34,15 +44,16 @@ async function counts() {
 
 beforeAll(async () => {
   expect(testDatabaseName()).not.toBe(scratchName);
-  await ensureDatabase(scratchUrl, { recreate: true });
-  await migrateDatabase(scratchUrl);
+  await ensureDatabase(scratchOwnerUrl, { recreate: true });
+  await migrateDatabase(scratchOwnerUrl, { appRole });
   client = postgres(scratchUrl, { max: 2, onnotice: () => {} });
   db = drizzle(client, { schema }) as unknown as Db;
 });
 
 afterAll(async () => {
   await client?.end({ timeout: 5 });
-  await dropDatabase(scratchUrl);
+  await dropDatabase(scratchOwnerUrl);
+  await dropDatabase(inUseOwnerUrl);
 });
 
 describe('demo seed', () => {
@@ -78,14 +89,32 @@ describe('demo seed', () => {
     }
   });
 
-  it('does nothing the second time, and --force adds nothing twice', async () => {
+  it('does nothing the second time', async () => {
     const before = await counts();
     const again = await seedDemo(db, { notes: false });
     expect(again.seeded).toBe(false);
-    expect(again.reason).toMatch(/4 user\(s\) exist/);
-    const forced = await seedDemo(db, { force: true, notes: false });
-    expect(forced.seeded).toBe(true);
+    expect(again.reason).toMatch(/already has 4 user\(s\)/);
     expect(await counts()).toEqual(before);
+  });
+
+  it('never seeds a database in use: one ordinary user is enough to leave it untouched', async () => {
+    await ensureDatabase(inUseOwnerUrl, { recreate: true });
+    await migrateDatabase(inUseOwnerUrl, { appRole });
+    const inUse = postgres(inUseUrl, { max: 1, onnotice: () => {} });
+    try {
+      const inUseDb = drizzle(inUse, { schema }) as unknown as Db;
+      await inUseDb.insert(users).values({ email: 'someone.real@research.example.org', name: 'Someone Real' });
+      const summary = await seedDemo(inUseDb, { notes: false });
+      expect(summary.seeded).toBe(false);
+      expect(summary.reason).toMatch(/already has 1 user\(s\)/);
+      const [u] = await inUseDb.select({ n: count() }).from(users);
+      const [m] = await inUseDb.select({ n: count() }).from(manuscripts);
+      expect({ users: u.n, manuscripts: m.n }).toEqual({ users: 1, manuscripts: 0 });
+      const demo = await inUseDb.select().from(users).where(eq(users.email, DEMO_ACCOUNTS[0].email));
+      expect(demo).toEqual([]);
+    } finally {
+      await inUse.end({ timeout: 5 });
+    }
   });
 
   it('the command line skips a database that has users and rejects unknown options with exit 2', () => {
@@ -96,5 +125,9 @@ describe('demo seed', () => {
     const bad = spawnSync('node_modules/.bin/tsx', ['db/seed.ts', '--bogus'], { env, encoding: 'utf8' });
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/unknown option --bogus/);
+    // There is no way to force the demo into a database that has users.
+    const forced = spawnSync('node_modules/.bin/tsx', ['db/seed.ts', '--force'], { env, encoding: 'utf8' });
+    expect(forced.status).toBe(2);
+    expect(forced.stderr).toMatch(/unknown option --force/);
   });
 });

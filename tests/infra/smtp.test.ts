@@ -1,7 +1,7 @@
 // The fake SMTP server (scripts/smtp.mjs) end to end: our nodemailer transport sends, the server stores JSON + .eml,
-// and the mailbox reader finds the message by recipient; bad options exit 2.
+// and the mailbox reader finds the message by recipient; files are owner-only (0600, folder 0700); bad options exit 2.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { chmodSync, existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -71,13 +71,23 @@ describe('fake SMTP round trip', () => {
     expect(existsSync(path.join(dir, message.file.replace(/\.json$/, '.eml')))).toBe(true);
   });
 
+  it('keeps the mailbox private: the folder becomes 0700 and every stored file is 0600', async () => {
+    const since = new Date();
+    await sendMail({ to: 'private@example.org', subject: 'a sign-in link', text: 'http://127.0.0.1:3100/api/auth/callback/email?token=t' });
+    const message = await waitForMailTo('private@example.org', { since, dir, timeoutMs: 10_000 });
+    // The folder was created 0755 by this test before the server started: the server tightened it.
+    expect(statSync(dir).mode & 0o777).toBe(0o700);
+    expect(statSync(path.join(dir, message.file)).mode & 0o777).toBe(0o600);
+    expect(statSync(path.join(dir, message.file.replace(/\.json$/, '.eml'))).mode & 0o777).toBe(0o600);
+  });
+
   it('lists newest first and skips files that are not messages', async () => {
     writeFileSync(path.join(dir, 'zzz-not-a-message.json'), '{"hello": 1}');
     writeFileSync(path.join(dir, 'zzz-broken.json'), '{');
     await sendMail({ to: 'second@example.org', subject: 'second', text: 'two' });
     const second = await waitForMailTo('second@example.org', { dir });
     const messages = await listMessages(dir);
-    expect(messages.map((m) => m.subject)).toEqual(['second', 'Flux tube ü — test']);
+    expect(messages.map((m) => m.subject)).toEqual(['second', 'a sign-in link', 'Flux tube ü — test']);
     expect(second.receivedAt.getTime()).toBeGreaterThanOrEqual(messages[1].receivedAt.getTime());
   });
 

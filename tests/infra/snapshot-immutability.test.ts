@@ -1,10 +1,11 @@
-// The database itself refuses to change or remove a frozen snapshot: UPDATE, DELETE and TRUNCATE fail.
-// Rows are inserted inside a transaction that is rolled back; each refused statement runs in its own savepoint.
+// The database itself refuses to change or remove a frozen snapshot: UPDATE, DELETE and TRUNCATE fail, for the app
+// role (rows inserted in a rolled-back transaction, each refused statement in its own savepoint) and for the owner.
 import { eq, sql, TransactionRollbackError } from 'drizzle-orm';
+import postgres from 'postgres';
 import { describe, expect, it } from 'vitest';
 import { figures, manuscripts, results, snapshots, users } from '@/db/schema';
 import type { TaskSpec } from '@/lib/physics/schemas';
-import { testDb, uniqueTag } from '../helpers/db';
+import { ownerDatabaseUrl, testDb, uniqueTag } from '../helpers/db';
 import { rejectionOf } from '../helpers/thrown';
 
 /** A valid spectrum spec for rows that only need to exist; nothing computes it. */
@@ -76,13 +77,28 @@ describe('snapshot immutability (database trigger)', () => {
       const remove = await refused(tx, (sp) => sp.delete(snapshots).where(eq(snapshots.id, snapshot.id)));
       expect(remove.message).toMatch(/snapshots are immutable \(DELETE refused/);
 
+      // The app role may not even try: TRUNCATE is not among its rights.
       const truncate = await refused(tx, (sp) => sp.execute(sql`TRUNCATE snapshots CASCADE`));
-      expect(truncate.message).toMatch(/snapshots are immutable/);
+      expect(truncate.code).toBe('42501');
+      expect(truncate.message).toMatch(/permission denied for table snapshots/);
 
       const [still] = await tx.select().from(snapshots).where(eq(snapshots.id, snapshot.id));
       expect(still.caption).toBe('frozen');
       tx.rollback();
     });
     await expect(outcome).rejects.toBeInstanceOf(TransactionRollbackError);
+  });
+
+  it('refuses TRUNCATE to the owner role too (statement trigger)', async () => {
+    const owner = postgres(ownerDatabaseUrl(), { max: 1, onnotice: () => {} });
+    try {
+      const attempt = owner.begin(async (tx) => {
+        await tx`TRUNCATE snapshots CASCADE`;
+        throw new Error('TRUNCATE was not refused'); // rolls the transaction back
+      });
+      await expect(attempt).rejects.toThrow(/snapshots are immutable \(TRUNCATE refused/);
+    } finally {
+      await owner.end({ timeout: 5 });
+    }
   });
 });

@@ -1,11 +1,11 @@
 // Developer mailbox: the messages the local fake SMTP server received (MAIL_DIR), newest first, with clickable
-// links. Absent (404) in production builds unless FLUXFOLIO_DEV_MAILBOX=1 (scripts/app.sh and scripts/test.sh set it).
+// links. Off unless FLUXFOLIO_DEV_MAILBOX=1 (or `next dev`); even then only site admins see it, everyone else a 404.
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { getEnv } from '@/lib/env';
 import { listMessages } from '@/lib/mail/mailbox';
 import { EmptyState } from '../../_components/empty-state';
-import { devMailboxEnabled } from './enabled';
+import { devMailboxVisible } from './enabled';
 import { MailText } from './mail-text';
 
 export const metadata: Metadata = { title: 'Dev mailbox', robots: { index: false } };
@@ -14,7 +14,7 @@ export const dynamic = 'force-dynamic';
 const MAX_SHOWN = 50;
 
 export default async function DevMailboxPage() {
-  if (!devMailboxEnabled()) notFound();
+  if (!(await devMailboxVisible())) notFound();
   const messages = (await listMessages()).slice(0, MAX_SHOWN);
   return (
     <div className="space-y-6">
