@@ -1,6 +1,7 @@
 // Typed HTTP errors and the JSON error body every route handler answers with:
 // `{ error: string, fields?: Record<string, string[]> }` (fields only for 400 validation failures).
 import { ZodError } from 'zod';
+import { RateLimitedError } from '@/lib/rate-limit/rate-limited-error';
 
 /** The JSON body of every error response. */
 export interface ErrorBody {
@@ -68,6 +69,11 @@ export function zodErrorResponse(error: ZodError, message = 'Some fields are not
 /** Any thrown value as a JSON response: HttpError keeps its status; anything else is logged and answered with 500. */
 export function toErrorResponse(error: unknown): Response {
   if (error instanceof HttpError) return jsonError(error.status, error.message, error.fields);
+  if (error instanceof RateLimitedError) {
+    const response = jsonError(429, error.message);
+    response.headers.set('retry-after', String(error.retryAfterSeconds));
+    return response;
+  }
   if (error instanceof ZodError) return zodErrorResponse(error);
   console.error(error);
   return jsonError(500, 'Something went wrong on the server');

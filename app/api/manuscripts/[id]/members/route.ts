@@ -7,6 +7,8 @@ import { appUrl } from '@/lib/http/app-url';
 import { HttpError } from '@/lib/http/errors';
 import { route } from '@/lib/http/handler';
 import { sendMail } from '@/lib/mail/send-mail';
+import { forgetHit, hit } from '@/lib/rate-limit/hit';
+import { INVITATIONS_PER_MANUSCRIPT } from '@/lib/rate-limit/limits';
 import { createInvitationSchema } from '@/lib/validations/invitation';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
 
@@ -17,6 +19,11 @@ export const GET = route({ params: manuscriptParamsSchema, manuscript: 'read' },
 export const POST = route(
   { params: manuscriptParamsSchema, body: createInvitationSchema, manuscript: 'manage', status: 201 },
   async ({ request, user, access, body }) => {
+    const counted = await hit({
+      ...INVITATIONS_PER_MANUSCRIPT,
+      key: access.manuscript.id,
+      message: 'This manuscript has sent as many invitations as allowed today; try again tomorrow',
+    });
     const { invitation, token } = await createInvitation({
       manuscriptId: access.manuscript.id,
       email: body.email,
@@ -35,6 +42,7 @@ export const POST = route(
     } catch (error) {
       console.error(error);
       await deleteInvitationById({ id: invitation.id });
+      await forgetHit(counted);
       throw new HttpError(502, 'The invitation e-mail could not be sent; try again in a moment');
     }
     const { id, email, role, createdAt, expiresAt } = invitation;
