@@ -142,6 +142,8 @@ export class Client {
   async request(pathname: string, init: RequestInit = {}): Promise<Response> {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
+    // Like a browser on one of the app's pages: mutating requests carry the page's Origin (lib/http/cross-site.ts).
+    if (!headers.has('origin')) headers.set('origin', new URL(APP_URL).origin);
     const response = await fetch(`${APP_URL}${pathname}`, { ...init, headers, redirect: 'manual' });
     this.store(response);
     return response;

@@ -78,6 +78,8 @@ async function signedIn(email: string, password: string): Promise<Page> {
   const { csrfToken } = (await (await page.request.get('/api/auth/csrf')).json()) as { csrfToken: string };
   const answer = await page.request.post('/api/auth/callback/credentials', {
     form: { csrfToken, email, password, callbackUrl: `${APP_URL}/` },
+    // As the sign-in page's own post would: next-auth's posts must come from our origin (lib/auth/guard-auth-post.ts).
+    headers: { origin: new URL(APP_URL).origin },
   });
   expect(answer.ok()).toBe(true);
   const session = (await (await page.request.get('/api/auth/session')).json()) as { user?: { email?: string } };
