@@ -30,7 +30,7 @@ export async function recordAttemptWithinLimit({
   windowSeconds: number;
 }): Promise<RecordAttemptResult> {
   return db.transaction(async (tx) => {
-    await tx.execute(sql`SELECT pg_advisory_xact_lock(hashtextextended(${`${bucket}\u0000${key}`}, 0))`);
+    await tx.execute(sql`SELECT pg_advisory_xact_lock(hashtextextended(${`${bucket}:${key}`}, 0))`);
     const since = sql`now() - make_interval(secs => ${windowSeconds})`;
     const inWindow = and(eq(rateLimitEvents.bucket, bucket), eq(rateLimitEvents.key, key), gt(rateLimitEvents.at, since));
     const [{ n }] = await tx.select({ n: count() }).from(rateLimitEvents).where(inWindow);

@@ -33,7 +33,9 @@ const PRUNE_EVERY = 200;
  * await hit({ bucket: 'invitation-manuscript', key: manuscriptId, limit: 50, windowSeconds: 86_400 });
  */
 export async function hit({ bucket, key, limit, windowSeconds, message }: HitOptions): Promise<RateLimitHit> {
-  const result = await recordAttemptWithinLimit({ bucket, key: key.slice(0, MAX_KEY_LENGTH), limit, windowSeconds });
+  // PostgreSQL text cannot hold NUL; a hostile key must neither crash the count nor escape it.
+  const safeKey = key.replace(/\u0000/g, '\uFFFD').slice(0, MAX_KEY_LENGTH);
+  const result = await recordAttemptWithinLimit({ bucket, key: safeKey, limit, windowSeconds });
   if (Math.floor(Math.random() * PRUNE_EVERY) === 0) await pruneOldAttempts();
   if (!result.allowed) throw new RateLimitedError(message ?? 'Too many requests; try again later', result.retryAfterSeconds);
   return { id: result.id };

@@ -26,7 +26,7 @@ function chunkedJson(title: string, totalBytes: number): ReadableStream<Uint8Arr
   const encoder = new TextEncoder();
   const head = encoder.encode(`{"title":${JSON.stringify(title)},"abstract":"`);
   const tail = encoder.encode('"}');
-  const filler = encoder.encode('x'.repeat(65_536));
+  const filler = encoder.encode('x'.repeat(Math.min(65_536, totalBytes)));
   let sent = 0;
   let stage = 0;
   return new ReadableStream({

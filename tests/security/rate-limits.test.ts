@@ -66,6 +66,8 @@ describe('the limit module (lib/rate-limit, PostgreSQL)', () => {
     // Another key and another bucket are counted apart.
     await expect(hit({ bucket: 'test-unit', key: `${key}-other`, limit: 3, windowSeconds: 60 })).resolves.toHaveProperty('id');
     await expect(hit({ bucket: 'test-unit-other', key, limit: 3, windowSeconds: 60 })).resolves.toHaveProperty('id');
+    // A hostile key (NUL bytes, great length) is counted, not a crash.
+    await expect(hit({ bucket: 'test-unit', key: `${key}\u0000${'x'.repeat(5000)}`, limit: 3, windowSeconds: 60 })).resolves.toHaveProperty('id');
   });
 
   it('frees a slot when an attempt is forgotten, and counts concurrent attempts exactly', async () => {
