@@ -242,6 +242,25 @@ export const snapshots = pgTable(
 );
 
 // ---------------------------------------------------------------------------------------------
+// Rate limits (shared by every app process: the counting happens in PostgreSQL)
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * One counted attempt in a rate-limit bucket (`password-account`, `invitation-manuscript`, …) for a key (an e-mail, a
+ * client address, a manuscript id). A limit counts the rows of (bucket, key) younger than its window; old rows are pruned.
+ */
+export const rateLimitEvents = pgTable(
+  'rate_limit_events',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    bucket: text('bucket').notNull(),
+    key: text('key').notNull(),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('rate_limit_events_bucket_key_at_idx').on(t.bucket, t.key, t.at), index('rate_limit_events_at_idx').on(t.at)],
+);
+
+// ---------------------------------------------------------------------------------------------
 // Relations
 // ---------------------------------------------------------------------------------------------
 
@@ -287,3 +306,4 @@ export type Figure = typeof figures.$inferSelect;
 export type Run = typeof runs.$inferSelect;
 export type Result = typeof results.$inferSelect;
 export type Snapshot = typeof snapshots.$inferSelect;
+export type RateLimitEvent = typeof rateLimitEvents.$inferSelect;

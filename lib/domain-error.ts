@@ -15,6 +15,8 @@ export const DOMAIN_ERROR_CODES = [
   'conflict',
   /** The request is larger than anything a route takes. */
   'too-large',
+  /** Too many attempts of this kind in a time window (sign-ins, mails, invitations, run starts). */
+  'rate-limited',
   /** A service we hand work to (the mail server) refused or failed. */
   'upstream-failed',
   /** A service we need (the run queue) is not available right now; trying again later may work. */

@@ -6,6 +6,7 @@ const MESSAGES: Record<string, string> = {
   EmailSignin: 'The sign-in e-mail could not be sent. Try again in a moment.',
   AccessDenied: 'This address cannot sign in. Accounts are created from an invitation to a manuscript.',
   SessionRequired: 'Sign in to see that page.',
+  RateLimited: 'Too many attempts. Wait a few minutes, then try again.',
 };
 
 export function signInErrorMessage(code: string | undefined): string | null {

@@ -8,9 +8,9 @@ import EmailProvider from 'next-auth/providers/email';
 import { db } from '@/db';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { getUserByEmail } from '@/db/queries/users';
-import { verifyPassword } from '@/lib/auth/password';
+import { TIMING_EQUALISER_HASH, verifyPassword } from '@/lib/auth/password';
 import { getEnv } from '@/lib/env';
-import { noAccountMail, signInLinkMail } from '@/lib/auth/sign-in-mail';
+import { signInLinkMail } from '@/lib/auth/sign-in-mail';
 import { sendMail } from '@/lib/mail/send-mail';
 import { passwordSignInSchema } from '@/lib/validations/auth';
 
@@ -38,8 +38,9 @@ export const authOptions: NextAuthOptions = {
         const parsed = passwordSignInSchema.safeParse(credentials ?? {});
         if (!parsed.success) return null;
         const user = await getUserByEmail({ email: parsed.data.email });
-        if (!user?.passwordHash) return null;
-        if (!(await verifyPassword(parsed.data.password, user.passwordHash))) return null;
+        // An unknown account spends the same bcrypt time as a known one, so the answer time does not tell them apart.
+        const matches = await verifyPassword(parsed.data.password, user?.passwordHash ?? TIMING_EQUALISER_HASH);
+        if (!user?.passwordHash || !matches) return null;
         return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
       },
     }),
@@ -49,19 +50,19 @@ export const authOptions: NextAuthOptions = {
       from: getEnv().MAIL_FROM,
       maxAge: MAGIC_LINK_MAX_AGE_SECONDS,
       async sendVerificationRequest({ identifier, url }) {
-        const { host } = new URL(url);
+        // No mail at all to an address without an account (the form answers "check your mail" either way), so the
+        // form cannot be used to send mail to strangers.
         const known = await getUserByEmail({ email: identifier });
-        const content = known
-          ? signInLinkMail({ url, host, minutes: MAGIC_LINK_MAX_AGE_SECONDS / 60 })
-          : noAccountMail({ host });
-        await sendMail({ to: identifier, ...content });
+        if (!known) return;
+        const { host } = new URL(url);
+        await sendMail({ to: identifier, ...signInLinkMail({ url, host, minutes: MAGIC_LINK_MAX_AGE_SECONDS / 60 }) });
       },
     }),
   ],
   callbacks: {
     async signIn({ user, account, email }) {
       // E-mail links only sign in existing accounts; accounts are created from invitations.
-      // At the request step we always say "check your mail" (the mail itself tells unknown addresses what to do).
+      // At the request step we always say "check your mail"; only known addresses get a mail.
       if (account?.provider !== 'email' || email?.verificationRequest) return true;
       return Boolean(user.email && (await getUserByEmail({ email: user.email })));
     },

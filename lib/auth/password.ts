@@ -37,3 +37,9 @@ export async function verifyPassword(password: string, hash: string): Promise<bo
     return false;
   }
 }
+
+/**
+ * A bcrypt hash at {@link BCRYPT_COST} of a throw-away phrase. Password sign-in for an unknown account (or one without a
+ * password) compares against it, so that answering "no" costs the same bcrypt time as for a known account.
+ */
+export const TIMING_EQUALISER_HASH = '$2b$10$MuU1NXA8sMMMVy7knP9iQegf1XRPiVyrzG24fhMkzI8VCRPHrrY9e';

@@ -1,5 +1,5 @@
-// The wording of the sign-in e-mails: the one-time link for a known address, and a short note for an address
-// without an account (so the sign-in form never reveals which addresses have accounts).
+// The wording of the sign-in e-mail carrying the one-time link. Only known addresses get it; an address without an
+// account gets no mail at all, and the sign-in form answers the same either way.
 import { escapeHtml } from '@/lib/text/escape-html';
 
 export interface MailContent {
@@ -32,17 +32,4 @@ export function signInLinkMail({ url, minutes, host }: { url: string; minutes: n
     paragraph(`<span style="color:#64748b">${escapeHtml(host)}</span>`),
   ].join('\n');
   return { subject, text, html };
-}
-
-/** The mail sent instead of a link when no account uses the address. */
-export function noAccountMail({ host }: { host: string }): MailContent {
-  const subject = 'Signing in to Fluxfolio';
-  const body =
-    'Someone asked for a Fluxfolio sign-in link for this address, but no account uses it. ' +
-    'Accounts are created from an invitation: ask an owner of the manuscript you work on to invite this address.';
-  return {
-    subject,
-    text: `${body}\n\nIf you did not ask, ignore this message. (${host})`,
-    html: [paragraph(escapeHtml(body)), paragraph(`<span style="color:#64748b">${escapeHtml(host)}</span>`)].join('\n'),
-  };
 }

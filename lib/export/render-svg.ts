@@ -1,6 +1,7 @@
 // Server-side SVG of a Vega-Lite chart: vega-lite compile, a headless vega View (renderer 'none', no canvas), toSVG.
 // Data must be inline; every load is refused. Output is deterministic (element ids renumbered) and can carry a size in cm.
 import * as vega from 'vega';
+import { expressionInterpreter } from 'vega-interpreter';
 import { compile } from 'vega-lite';
 import type { ChartSpec } from '@/lib/charts/common';
 import { FIGURE_WIDTH_CM, type FigureWidth } from './widths';
@@ -96,7 +97,12 @@ function setRootSize(svg: string, width: string, height: string): string {
 export async function renderSvg(spec: ChartSpec, options: RenderSvgOptions = {}): Promise<RenderedSvg> {
   assertInlineData(spec);
   const vegaSpec = compile(spec).spec;
-  const view = new vega.View(vega.parse(vegaSpec), { renderer: 'none', loader: refusingLoader() });
+  // Vega's interpreter evaluates expressions from their AST: no code is generated from spec text (no eval, no Function).
+  const view = new vega.View(vega.parse(vegaSpec, undefined, { ast: true }), {
+    renderer: 'none',
+    loader: refusingLoader(),
+    expr: expressionInterpreter,
+  });
   try {
     let svg = await view.toSVG();
     svg = renumberIds(svg);

@@ -4,6 +4,7 @@ import { ZodError } from 'zod';
 import { DomainError, type DomainErrorCode, type FieldMessages } from '@/lib/domain-error';
 import { LimitError, SpecError } from '@/lib/physics/errors';
 import { fieldMessages } from '@/lib/validation-fields';
+import { RateLimitedError } from '@/lib/rate-limit/rate-limited-error';
 
 /** The JSON body of every error response. */
 export interface ErrorBody {
@@ -19,6 +20,7 @@ export const STATUS_OF_CODE: Record<DomainErrorCode, number> = {
   'not-found': 404,
   conflict: 409,
   'too-large': 413,
+  'rate-limited': 429,
   'upstream-failed': 502,
   unavailable: 503,
 };
@@ -45,6 +47,11 @@ export function zodErrorResponse(error: ZodError, message = 'Some fields are not
  * to change); anything else is logged and answered with 500.
  */
 export function toErrorResponse(error: unknown): Response {
+  if (error instanceof RateLimitedError) {
+    const response = jsonError(STATUS_OF_CODE[error.code], error.message);
+    response.headers.set('retry-after', String(error.retryAfterSeconds));
+    return response;
+  }
   if (error instanceof DomainError) return jsonError(STATUS_OF_CODE[error.code], error.message, error.fields);
   if (error instanceof ZodError) return zodErrorResponse(error);
   if (error instanceof SpecError) return jsonError(400, 'The parameters are not valid', fieldMessages(error.issues));

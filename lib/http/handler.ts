@@ -1,11 +1,13 @@
-// The one wrapper for route handlers: validate (params, query, JSON body) -> authenticate -> authorize
+// The one wrapper for route handlers: cross-site check -> validate (params, query) -> authenticate -> JSON body -> authorize
 // (manuscript-scoped routes, through authorizeManuscript) -> run the handler -> respond, with JSON errors throughout.
 import { z } from 'zod';
 import { getCurrentUser, type CurrentUser } from '@/lib/auth/session';
 import { authorizeManuscript, type ManuscriptAccess, type ManuscriptAction } from '@/lib/authz/manuscript-access';
+import { crossSiteRefusal } from './cross-site';
 import { jsonError, toErrorResponse, zodErrorResponse } from './errors';
+import { readBodyText } from './read-body';
 
-/** Bodies above 1 MB are refused before parsing (no route here takes more). */
+/** Bodies above 1 MB are refused while reading, with or without Content-Length (no route here takes more). */
 export const MAX_JSON_BODY_BYTES = 1_000_000;
 
 type Schema = z.ZodType;
@@ -41,12 +43,15 @@ export interface NextRouteArgs {
 }
 
 async function readJson(request: Request): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
-  const declared = Number(request.headers.get('content-length') ?? '0');
-  if (declared > MAX_JSON_BODY_BYTES) return { ok: false, response: jsonError(413, 'The request body is too large') };
-  const text = await request.text();
-  if (new TextEncoder().encode(text).length > MAX_JSON_BODY_BYTES) {
-    return { ok: false, response: jsonError(413, 'The request body is too large') };
+  const body = await readBodyText(request, MAX_JSON_BODY_BYTES);
+  if (!body.ok) {
+    const response =
+      body.reason === 'too-large'
+        ? jsonError(413, 'The request body is too large')
+        : jsonError(400, 'The request body is not valid UTF-8 text');
+    return { ok: false, response };
   }
+  const text = body.text;
   if (text.trim() === '') return { ok: true, value: {} };
   try {
     return { ok: true, value: JSON.parse(text) };
@@ -76,7 +81,10 @@ export function route<
 ): (request: Request, args: NextRouteArgs) => Promise<Response> {
   return async (request, args) => {
     try {
-      // 1. validate
+      // 0. refuse forged cross-site mutations (session cookie without our Origin, or a body that is not JSON)
+      const crossSite = crossSiteRefusal(request, { json: true });
+      if (crossSite) return crossSite;
+      // 1. validate the address
       const rawParams = (await args?.params) ?? {};
       let params: unknown = undefined;
       if (config.params) {
@@ -90,6 +98,10 @@ export function route<
         if (!parsed.success) return zodErrorResponse(parsed.error, 'The query string is not valid');
         query = parsed.data;
       }
+      // 2. authenticate before reading any body
+      const user = await getCurrentUser();
+      if (!user && config.auth !== 'optional') return jsonError(401, 'Sign in to continue');
+      // then validate the body
       let body: unknown = undefined;
       if (config.body) {
         const json = await readJson(request);
@@ -98,9 +110,6 @@ export function route<
         if (!parsed.success) return zodErrorResponse(parsed.error);
         body = parsed.data;
       }
-      // 2. authenticate
-      const user = await getCurrentUser();
-      if (!user && config.auth !== 'optional') return jsonError(401, 'Sign in to continue');
       // 3. authorize
       let access: ManuscriptAccess | undefined;
       if (config.manuscript) {

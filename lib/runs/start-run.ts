@@ -1,13 +1,15 @@
 // Starting a run of a figure: validate its parameters with the solver's schema, serve an identical earlier input
-// from the stored result (content hash), otherwise queue a new run for the workers.
+// from the stored result (content hash), join an identical active run, otherwise queue a new run within the quotas.
 import type { Db } from '@/db';
 import { db as defaultDb } from '@/db';
 import { getResultByInputHash } from '@/db/queries/results';
+import { queueRunWithinQuota } from '@/db/queries/run-quotas';
 import { failRun, insertRun, setRunJobId } from '@/db/queries/runs';
 import type { Figure, Run } from '@/db/schema';
 import { conflict, invalid, unavailable } from '@/lib/domain-error';
 import { figureKind, isFigureKind } from '@/lib/figure-kinds/registry';
 import { enqueueRun } from '@/lib/jobs/queue';
+import { RateLimitedError } from '@/lib/rate-limit/rate-limited-error';
 import { SpecError } from '@/lib/physics/errors';
 import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
@@ -18,7 +20,16 @@ export interface StartedRun {
   run: Run;
   /** True when an earlier identical input was reused and nothing is computed. */
   fromCache: boolean;
+  /** True when an identical input was already queued or running for the figure: `run` is that run. */
+  joined?: boolean;
 }
+
+/** Active (queued or running) runs one person may have at once (common practice: a few, so one person cannot fill the queue). */
+export const ACTIVE_RUNS_PER_PERSON = 4;
+/** Active runs one figure may have at once. */
+export const ACTIVE_RUNS_PER_FIGURE = 2;
+/** The Retry-After hint of a quota refusal: runs of the sizes the limits allow usually finish within this. */
+const RUN_QUOTA_RETRY_AFTER_SECONDS = 30;
 
 /**
  * Start a run of `figure` with its current parameters.
@@ -29,7 +40,9 @@ export interface StartedRun {
  *   is written.
  * - Cache: when a result exists for the same input hash (parameters + solver version), the run is created already
  *   succeeded with `fromCache` and no job.
- * - Otherwise the run is created 'queued' and put on the queue; its job id is recorded.
+ * - An identical input already queued or running for the figure is joined: that run is returned, nothing new is queued.
+ * - Otherwise, within the quotas of active runs per person and per figure (a RateLimitedError beyond them), the run is
+ *   created 'queued' and put on the queue; its job id is recorded.
  *
  * @example
  * const { run, fromCache } = await startRun({ figure, user });
@@ -81,7 +94,22 @@ export async function startRun({
     return { run, fromCache: true };
   }
 
-  const run = await insertRun({ values: { ...common, status: 'queued', message: 'Waiting for a worker' }, database });
+  const queued = await queueRunWithinQuota({
+    values: { ...common, status: 'queued', message: 'Waiting for a worker' },
+    perPerson: ACTIVE_RUNS_PER_PERSON,
+    perFigure: ACTIVE_RUNS_PER_FIGURE,
+    database,
+  });
+  if (queued.outcome === 'joined') return { run: queued.run, fromCache: false, joined: true };
+  if (queued.outcome === 'over-quota') {
+    throw new RateLimitedError(
+      queued.scope === 'person'
+        ? `You already have ${queued.limit} runs queued or running; wait for one to finish or cancel one`
+        : `This figure already has ${queued.limit} runs queued or running; wait for one to finish or cancel one`,
+      RUN_QUOTA_RETRY_AFTER_SECONDS,
+    );
+  }
+  const run = queued.run;
   if (!enqueue) return { run, fromCache: false };
   try {
     const jobId = await enqueue(run.id);

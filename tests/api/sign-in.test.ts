@@ -1,5 +1,5 @@
 // Sign-in through next-auth: password (right, wrong, unknown address) and one-time e-mail links read from
-// the fake SMTP server's mailbox (link works once; unknown addresses get a note without a link).
+// the fake SMTP server's mailbox (link works once; unknown addresses get no mail).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
 import { APP_URL, HttpClient } from '../helpers/http-client';
@@ -101,14 +101,13 @@ describe('e-mail link sign-in', () => {
     expect(await again.session()).toBeNull();
   });
 
-  it('answers an unknown address like a known one, and mails a note without a link', async () => {
+  it('answers an unknown address like a known one, and sends it no mail', async () => {
     const stranger = `stranger.${Date.now()}@fluxfolio.test`;
     const since = new Date();
     expect(await new HttpClient().requestSignInLink(stranger)).toMatch(/verify-request|check-mail/);
-    const mail = await waitForMailTo(stranger, { since });
-    expect(linksIn(mail).some((url) => url.includes('/api/auth/callback/email'))).toBe(false);
-    expect(mail.text).toMatch(/invit/i);
-    expect(await mailsTo(stranger, { since })).toHaveLength(1);
+    // A known address's mail arrives within this time in the test above; give a stranger's the same chance.
+    await new Promise((resolve) => setTimeout(resolve, 1_500));
+    expect(await mailsTo(stranger, { since })).toHaveLength(0);
   });
 
   it('refuses an invalid address without sending mail', async () => {

@@ -51,6 +51,8 @@ export class HttpClient {
   async fetch(pathname: string, { json, headers, ...init }: HttpRequestInit = {}): Promise<Response> {
     const h = new Headers(headers);
     if (this.cookies.size > 0) h.set('cookie', this.cookieHeader());
+    // Like a browser on one of the app's pages: requests carry the page's Origin (lib/http/cross-site.ts).
+    if (!h.has('origin')) h.set('origin', new URL(APP_URL).origin);
     let body = init.body;
     if (json !== undefined) {
       h.set('content-type', 'application/json');

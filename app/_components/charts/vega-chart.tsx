@@ -1,10 +1,11 @@
-// The one client component that draws a Vega-Lite chart in the browser (react-vega's VegaEmbed, SVG renderer).
-// Specs come from the pure builders in lib/charts with their data inline; nothing else imports the Vega runtime.
+// The one client component that draws a Vega-Lite chart in the browser (react-vega's VegaEmbed, SVG renderer), evaluating
+// expressions with Vega's interpreter (no generated code, so the CSP needs no unsafe-eval). Nothing else imports Vega here.
 'use client';
 
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { VegaEmbed } from 'react-vega';
-import type { VisualizationSpec } from 'vega-embed';
+import type { EmbedOptions, VisualizationSpec } from 'vega-embed';
+import { expressionInterpreter } from 'vega-interpreter';
 
 export interface VegaChartProps {
   /** A complete Vega-Lite spec with inline data (built by lib/charts). */
@@ -15,11 +16,35 @@ export interface VegaChartProps {
 }
 
 /**
+ * Embed options fixed by the app: the AST interpreter instead of compiled expressions, no action menu, and no injected
+ * default stylesheet (the menu is off, and the CSP does not need to admit it).
+ */
+const EMBED_OPTIONS: EmbedOptions = {
+  ast: true,
+  expr: expressionInterpreter,
+  actions: false,
+  renderer: 'svg',
+  defaultStyle: false,
+};
+
+/**
+ * The spec without `usermeta.embedOptions`: vega-embed would let those override ours (loaders, expression evaluation), and
+ * view specs are stored user input.
+ */
+export function withoutEmbedOptions(spec: VisualizationSpec): VisualizationSpec {
+  const usermeta = (spec as { usermeta?: unknown }).usermeta;
+  if (!usermeta || typeof usermeta !== 'object' || !('embedOptions' in usermeta)) return spec;
+  const { embedOptions: _ignored, ...rest } = usermeta as Record<string, unknown>;
+  return { ...spec, usermeta: rest } as VisualizationSpec;
+}
+
+/**
  * Renders a Vega-Lite spec as SVG, without the embed action menu. Errors from Vega (a bad edited view spec,
  * for instance) are shown in place instead of breaking the page.
  */
 export function VegaChart({ spec, label, className }: VegaChartProps) {
   const [error, setError] = useState<string | null>(null);
+  const safeSpec = useMemo(() => withoutEmbedOptions(spec), [spec]);
   return (
     <figure className={className} data-testid="chart" aria-label={label} role="img">
       {error ? (
@@ -28,8 +53,8 @@ export function VegaChart({ spec, label, className }: VegaChartProps) {
         </p>
       ) : null}
       <VegaEmbed
-        spec={spec}
-        options={{ actions: false, renderer: 'svg' }}
+        spec={safeSpec}
+        options={EMBED_OPTIONS}
         onError={(err) => setError(err instanceof Error ? err.message : String(err))}
         onEmbed={() => setError(null)}
         className="w-full overflow-x-auto"

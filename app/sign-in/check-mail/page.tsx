@@ -18,11 +18,12 @@ export default async function CheckMailPage({
       <LogoMark className="mx-auto size-10" />
       <h1 className="mt-4 text-xl font-semibold text-slate-900">Check your e-mail</h1>
       <p className="mt-3 text-sm text-slate-600" role="status">
-        We sent a message to {address ? <strong className="text-slate-900">{address}</strong> : 'your address'}. Open
-        the link in it to sign in; it works once, within 30 minutes.
+        If an account uses {address ? <strong className="text-slate-900">{address}</strong> : 'your address'}, we sent it
+        a sign-in link. Open the link to sign in; it works once, within 30 minutes.
       </p>
       <p className="mt-4 text-xs text-slate-500">
-        Nothing after a few minutes? Look in the spam folder, or{' '}
+        Nothing after a few minutes? Look in the spam folder, make sure this is the address you were invited with,
+        or{' '}
         <Link href="/sign-in" className="font-medium text-flux-700 underline-offset-2 hover:underline">
           ask for another link
         </Link>

@@ -8,6 +8,8 @@ import { invitationMail } from '@/lib/invitations/invitation-mail';
 import { appUrl } from '@/lib/http/app-url';
 import { route } from '@/lib/http/handler';
 import { sendMail } from '@/lib/mail/send-mail';
+import { forgetHit, hit } from '@/lib/rate-limit/hit';
+import { INVITATIONS_PER_MANUSCRIPT } from '@/lib/rate-limit/limits';
 import { createInvitationSchema } from '@/lib/validations/invitation';
 import { manuscriptParamsSchema } from '@/lib/validations/manuscript';
 import type { MembersBody } from '@/lib/api-types';
@@ -20,6 +22,11 @@ export const GET = route(
 export const POST = route(
   { params: manuscriptParamsSchema, body: createInvitationSchema, manuscript: 'manage', status: 201 },
   async ({ request, user, access, body }) => {
+    const counted = await hit({
+      ...INVITATIONS_PER_MANUSCRIPT,
+      key: access.manuscript.id,
+      message: 'This manuscript has sent as many invitations as allowed today; try again tomorrow',
+    });
     const { invitation, token } = await createInvitation({
       manuscriptId: access.manuscript.id,
       email: body.email,
@@ -38,6 +45,7 @@ export const POST = route(
     } catch (error) {
       console.error(error);
       await deleteInvitationById({ id: invitation.id });
+      await forgetHit(counted);
       throw upstreamFailed('The invitation e-mail could not be sent; try again in a moment');
     }
     const { id, email, role, createdAt, expiresAt } = invitation;
