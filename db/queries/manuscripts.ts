@@ -1,6 +1,6 @@
-// Queries about manuscripts: look-ups, lists with the caller's role, creation (with a unique slug and the
+// Queries about manuscripts: look-ups, lists with the caller's role, creation (at the caller's address, with the
 // creator as owner), detail updates, archiving, and deletion (refused while frozen snapshots exist).
-import { and, count, desc, eq, inArray, like, or, sql } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from '@/db';
 import { manuscripts, memberships, snapshots, type Manuscript, type MemberRole } from '@/db/schema';
 import { conflict, notFound } from '@/lib/domain-error';
@@ -17,20 +17,6 @@ export interface ManuscriptListItem {
   updatedAt: Date;
   role: MemberRole | null;
   memberCount: number;
-}
-
-/** The first free slug among `base`, `base-2`, `base-3`, … */
-async function nextFreeSlug(tx: Executor, base: string): Promise<string> {
-  const rows = await tx
-    .select({ slug: manuscripts.slug })
-    .from(manuscripts)
-    .where(or(eq(manuscripts.slug, base), like(manuscripts.slug, `${base}-%`)));
-  const taken = new Set(rows.map((row) => row.slug));
-  if (!taken.has(base)) return base;
-  for (let n = 2; ; n++) {
-    const candidate = `${base}-${n}`;
-    if (!taken.has(candidate)) return candidate;
-  }
 }
 
 /** A manuscript by id, or null. */
@@ -79,13 +65,14 @@ export async function listAllManuscripts({ userId }: { userId: string }): Promis
 }
 
 /**
- * Create a manuscript with `ownerId` as its first owner. `slug` (the caller derives it from the title) is made
- * unique (`slug`, `slug-2`, …); a concurrent insert of the same slug is retried.
+ * Create a manuscript with `ownerId` as its first owner, at the address `slug` (chosen by the caller).
+ *
+ * @throws DomainError `conflict` when another manuscript already has that address
  */
 export async function createManuscript({
   ownerId,
   title,
-  slug: base,
+  slug,
   abstract = '',
 }: {
   ownerId: string;
@@ -93,22 +80,16 @@ export async function createManuscript({
   slug: string;
   abstract?: string;
 }): Promise<Manuscript> {
-  for (let attempt = 0; attempt < 5; attempt++) {
-    try {
-      return await db.transaction(async (tx) => {
-        const slug = await nextFreeSlug(tx, base);
-        const [manuscript] = await tx
-          .insert(manuscripts)
-          .values({ title, abstract, slug, createdById: ownerId })
-          .returning();
-        await tx.insert(memberships).values({ manuscriptId: manuscript.id, userId: ownerId, role: 'owner' });
-        return manuscript;
-      });
-    } catch (error) {
-      if (pgErrorCode(error) !== UNIQUE_VIOLATION) throw error;
-    }
+  try {
+    return await db.transaction(async (tx) => {
+      const [manuscript] = await tx.insert(manuscripts).values({ title, abstract, slug, createdById: ownerId }).returning();
+      await tx.insert(memberships).values({ manuscriptId: manuscript.id, userId: ownerId, role: 'owner' });
+      return manuscript;
+    });
+  } catch (error) {
+    if (pgErrorCode(error) === UNIQUE_VIOLATION) throw conflict('This address is taken; try again');
+    throw error;
   }
-  throw conflict('Could not find a free address for this title; try again');
 }
 
 /** Change title, abstract and/or status; bumps updatedAt. */

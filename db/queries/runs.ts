@@ -145,10 +145,21 @@ export async function finishRunWithResult({
 }
 
 /** Finish a run with an existing result (an identical input was computed by another run meanwhile). */
-export async function finishRunFromResult({ runId, resultId, database = db }: { runId: string; resultId: string; database?: Db }): Promise<Run | null> {
+export async function finishRunFromResult({
+  runId,
+  resultId,
+  fromCache,
+  database = db,
+}: {
+  runId: string;
+  resultId: string;
+  /** Whether to show the run as served from the cache (the caller decides who may know the result existed). */
+  fromCache: boolean;
+  database?: Db;
+}): Promise<Run | null> {
   const [row] = await database
     .update(runs)
-    .set({ status: 'succeeded', resultId, progress: 1, message: 'Served from the cache', fromCache: true, finishedAt: new Date() })
+    .set({ status: 'succeeded', resultId, progress: 1, message: fromCache ? 'Served from the cache' : 'Done', fromCache, finishedAt: new Date() })
     .where(and(eq(runs.id, runId), eq(runs.status, 'running')))
     .returning();
   return row ?? null;

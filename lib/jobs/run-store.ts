@@ -1,7 +1,7 @@
 // Store step of a run job: the run's final state. A cached result or a new result row is written together with the
 // run's success in one transaction; a stopped or failed computation leaves the run failed, cancelled or requeued.
 import type { Db } from '@/db';
-import { getResultByInputHash } from '@/db/queries/results';
+import { getResultByInputHash, resultKnownToManuscript } from '@/db/queries/results';
 import { failRun, finishRunFromResult, finishRunWithResult, requeueRun } from '@/db/queries/runs';
 import { AbortError, LimitError, SpecError } from '@/lib/physics/errors';
 import { SOLVER_VERSION } from '@/lib/physics/version';
@@ -17,9 +17,11 @@ import type { AbortReason } from './run-watch';
 export async function finishFromCache(runId: string, key: string, database: Db): Promise<RunJobOutcome | null> {
   const cached = await getResultByInputHash({ inputHash: key, database });
   if (!cached) return null;
-  const finished = await finishRunFromResult({ runId, resultId: cached.id, database });
+  // A result first computed for another manuscript is not shown as cached: that would tell that it exists.
+  const fromCache = await resultKnownToManuscript({ resultId: cached.id, manuscript: { ofRun: runId }, database });
+  const finished = await finishRunFromResult({ runId, resultId: cached.id, fromCache, database });
   if (!finished) return { status: 'cancelled', runId };
-  return { status: 'succeeded', runId, fromCache: true, resultId: cached.id, resultHash: cached.resultHash };
+  return { status: 'succeeded', runId, fromCache, resultId: cached.id, resultHash: cached.resultHash };
 }
 
 /**

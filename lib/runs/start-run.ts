@@ -2,7 +2,7 @@
 // from the stored result (content hash), join an identical active run, otherwise queue a new run within the quotas.
 import type { Db } from '@/db';
 import { db as defaultDb } from '@/db';
-import { getResultByInputHash } from '@/db/queries/results';
+import { getResultByInputHash, resultKnownToManuscript } from '@/db/queries/results';
 import { queueRunWithinQuota } from '@/db/queries/run-quotas';
 import { failRun, insertRun, setRunJobId } from '@/db/queries/runs';
 import type { Figure, Run } from '@/db/schema';
@@ -39,7 +39,8 @@ const RUN_QUOTA_RETRY_AFTER_SECONDS = 30;
  *   DomainError `invalid` with per-field messages keyed like the figure form's fields (`params.grid.h`), and nothing
  *   is written.
  * - Cache: when a result exists for the same input hash (parameters + solver version), the run is created already
- *   succeeded with `fromCache` and no job.
+ *   succeeded with no job. It says `fromCache` only when a run of the same manuscript used that result before: a
+ *   result first computed for another group's manuscript is served like a fresh one, so nobody learns it exists.
  * - An identical input already queued or running for the figure is joined: that run is returned, nothing new is queued.
  * - Otherwise, within the quotas of active runs per person and per figure (a RateLimitedError beyond them), the run is
  *   created 'queued' and put on the queue; its job id is recorded.
@@ -54,7 +55,7 @@ export async function startRun({
   enqueue = enqueueRun,
 }: {
   /** The figure; its stored `params` are validated again here, so they are taken as they come. */
-  figure: Pick<Figure, 'id' | 'kind'> & { params: unknown };
+  figure: Pick<Figure, 'id' | 'kind' | 'manuscriptId'> & { params: unknown };
   user: { id: string } | null;
   database?: Db;
   /** How to queue the run (the seed computes in-process and passes a no-op). */
@@ -78,20 +79,21 @@ export async function startRun({
   const cached = await getResultByInputHash({ inputHash: key, database });
   if (cached) {
     const now = new Date();
+    const fromCache = await resultKnownToManuscript({ resultId: cached.id, manuscript: { id: figure.manuscriptId }, database });
     const run = await insertRun({
       values: {
         ...common,
         status: 'succeeded',
         resultId: cached.id,
-        fromCache: true,
+        fromCache,
         progress: 1,
-        message: 'Served from the cache',
+        message: fromCache ? 'Served from the cache' : 'Finished',
         startedAt: now,
         finishedAt: now,
       },
       database,
     });
-    return { run, fromCache: true };
+    return { run, fromCache };
   }
 
   const queued = await queueRunWithinQuota({

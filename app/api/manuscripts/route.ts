@@ -1,9 +1,9 @@
 // GET: the caller's manuscripts with their role (site admins: ?scope=all for every manuscript).
 // POST: create a manuscript with the caller as owner (201).
-import { createManuscript, listAllManuscripts, listManuscriptsForUser } from '@/db/queries/manuscripts';
+import { listAllManuscripts, listManuscriptsForUser } from '@/db/queries/manuscripts';
 import { forbidden } from '@/lib/domain-error';
 import { route } from '@/lib/http/handler';
-import { slugFromTitle } from '@/lib/validations/common';
+import { newManuscript } from '@/lib/manuscripts/new-manuscript';
 import { createManuscriptSchema, manuscriptListQuerySchema } from '@/lib/validations/manuscript';
 import type { ManuscriptsBody } from '@/lib/api-types';
 
@@ -16,11 +16,6 @@ export const GET = route({ query: manuscriptListQuerySchema }, async ({ user, qu
 });
 
 export const POST = route({ body: createManuscriptSchema, status: 201 }, async ({ user, body }) => {
-  const manuscript = await createManuscript({
-    ownerId: user.id,
-    title: body.title,
-    slug: slugFromTitle(body.title, 'manuscript'),
-    abstract: body.abstract,
-  });
+  const manuscript = await newManuscript({ ownerId: user.id, title: body.title, abstract: body.abstract });
   return { manuscript };
 });
