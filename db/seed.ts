@@ -96,7 +96,7 @@ async function seedMemberships(db: Db, manuscript: Manuscript, people: DemoPeopl
  * Imported lazily so that people and manuscript are seeded even while that module is unavailable.
  */
 export async function seedNotes(db: Db, manuscript: Manuscript, people: DemoPeople): Promise<{ notes: number; snapshots: number }> {
-  const { seedFigureNotes } = await import('./seed-figure-notes');
+  const { seedFigureNotes } = await import('@/lib/demo/seed-figure-notes');
   return seedFigureNotes({ db, manuscriptId: manuscript.id, authorId: people.author.id });
 }
 

@@ -12,7 +12,7 @@ import { startRun } from '@/lib/runs/start-run';
 import { freezeRun } from '@/lib/snapshots/freeze';
 import { createFigureSchema, type CreateFigureInput } from '@/lib/validations/figure';
 
-const NOTES_DIR = new URL('../content/demo-notes/', import.meta.url);
+const NOTES_DIR = new URL('../../content/demo-notes/', import.meta.url);
 
 /** One demo note and the figure it shows. Grids are coarse so that the whole seed stays well under a minute. */
 interface DemoNote {

@@ -6,7 +6,7 @@ import { listFiguresByManuscript } from '@/db/queries/figures';
 import { listNotesByManuscript } from '@/db/queries/notes';
 import { getResultById } from '@/db/queries/results';
 import { getSnapshotContext, listSnapshotsByManuscript } from '@/db/queries/snapshots';
-import { DEMO_NOTES, seedFigureNotes } from '@/db/seed-figure-notes';
+import { DEMO_NOTES, seedFigureNotes } from '@/lib/demo/seed-figure-notes';
 import { extractFigureRefs } from '@/lib/mdx/compile-note';
 import { snapshotBundle } from '@/lib/snapshots/bundle';
 import { parseBundle, verifyBundle } from '@/lib/snapshots/verify-bundle';
