@@ -100,5 +100,5 @@ describe('worker killed during a run', () => {
     const stopped = await second.exited;
     expect(stopped.code).toBe(0);
     expect(second.output()).toMatch(/stopped/);
-  });
+  }, 300_000); // two worker start-ups, a computation and a retry: longer than the default test timeout on a loaded machine
 });
