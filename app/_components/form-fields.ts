@@ -2,8 +2,10 @@
 // turn a failed parse into per-field messages (the same shape the API answers with).
 import type { z } from 'zod';
 import { ApiError } from '@/lib/fetcher';
+import type { FieldMessages } from '@/lib/domain-error';
+import { fieldMessages } from '@/lib/validation-fields';
 
-export type FieldErrors = Record<string, string[]>;
+export type FieldErrors = FieldMessages;
 
 /** The form's entries as strings (files are ignored; none of our forms upload). */
 export function formValues(form: HTMLFormElement): Record<string, string> {
@@ -19,12 +21,7 @@ export function parseWith<S extends z.ZodType>(
 ): { ok: true; data: z.output<S> } | { ok: false; fields: FieldErrors } {
   const result = schema.safeParse(input);
   if (result.success) return { ok: true, data: result.data };
-  const fields: FieldErrors = {};
-  for (const issue of result.error.issues) {
-    const key = issue.path.length ? issue.path.map(String).join('.') : '_';
-    (fields[key] ??= []).push(issue.message);
-  }
-  return { ok: false, fields };
+  return { ok: false, fields: fieldMessages(result.error.issues) };
 }
 
 /**
