@@ -3,12 +3,12 @@
 import { CHART_VIEWS, FIGURE_KINDS, figureKind, isFigureKind } from '@/lib/figure-kinds/registry';
 import { type DisplayUnits } from '@/lib/units';
 import type { ChartOptions, ChartSpec } from './common';
-import { ChartDataError, isRecord } from './read-result';
-import { mergeViewSpec, viewSpecSchema } from './view-spec';
+import { ChartDataError } from './read-result';
+import { mergeViewSpec, splitViewChoice, viewSpecSchema } from './view-spec';
 
 export type { ChartOptions, ChartSpec } from './common';
 export { ChartDataError } from './read-result';
-export { editableViewSpec, mergeViewSpec, sanitizeViewSpec, viewSpecSchema } from './view-spec';
+export { editableViewSpec, mergeViewSpec, VIEW_CHOICE_KEY, viewSpecSchema } from './view-spec';
 
 export interface DefaultViewOptions extends ChartOptions {
   /** One of the kind's views (CHART_VIEWS in lib/figure-kinds/registry.ts); default the first. */
@@ -34,16 +34,19 @@ export function defaultViewSpec(kind: string, result: unknown, options: DefaultV
   return figureKind(kind).chartSpec(result, { ...options, view });
 }
 
-/** A stored view spec through the same schema as at write time (validates and sanitises) before it is drawn. */
+/** A stored view spec through the same schema as at write time (the allow-list) before it is drawn. */
 function checkedViewSpec(viewSpec: unknown): Record<string, unknown> {
   const parsed = viewSpecSchema.safeParse(viewSpec);
-  if (!parsed.success) throw new ChartDataError(`the figure's view spec cannot be used: ${parsed.error.issues.map((i) => i.message).join('; ')}`);
+  if (!parsed.success) {
+    const issues = parsed.error.issues.map((i) => (i.path.length ? `${i.path.join('.')}: ${i.message}` : i.message));
+    throw new ChartDataError(`the figure's view spec cannot be used: ${issues.join('; ')}`);
+  }
   return parsed.data;
 }
 
 export interface ChartSpecForOptions extends Omit<DefaultViewOptions, 'units'> {
   units: DisplayUnits;
-  /** The figure's stored view spec (partial Vega-Lite), merged over the default; `usermeta.view` / `usermeta.level` pick a view. */
+  /** The figure's stored view spec (partial Vega-Lite), merged over the default; `fluxfolio.view` / `fluxfolio.level` pick a view. */
   viewSpec?: unknown;
 }
 
@@ -55,15 +58,15 @@ export interface ChartSpecForOptions extends Omit<DefaultViewOptions, 'units'> {
 export function chartSpecFor(kind: string, result: unknown, options: ChartSpecForOptions): ChartSpec {
   const { viewSpec, ...rest } = options;
   const clean = viewSpec === undefined || viewSpec === null ? undefined : checkedViewSpec(viewSpec);
-  const meta = clean && isRecord(clean.usermeta) ? clean.usermeta : {};
-  const view = rest.view ?? (typeof meta.view === 'string' ? meta.view : undefined);
-  const level = rest.level ?? (typeof meta.level === 'number' ? meta.level : undefined);
+  const choice = clean ? splitViewChoice(clean) : undefined;
+  const view = rest.view ?? choice?.view;
+  const level = rest.level ?? choice?.level;
   const width = rest.width ?? (clean && typeof clean.width === 'number' ? clean.width : undefined);
   const height = rest.height ?? (clean && typeof clean.height === 'number' ? clean.height : undefined);
   const base = defaultViewSpec(kind, result, { ...rest, view, level, width, height });
-  if (!clean) return base;
+  if (!choice) return base;
   // Size options were applied by the builder (maps keep their aspect); do not let the raw numbers undo that.
-  const { width: _w, height: _h, ...styling } = clean;
+  const { width: _w, height: _h, ...styling } = choice.styling;
   void _w;
   void _h;
   return mergeViewSpec(base, styling);

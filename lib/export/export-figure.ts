@@ -1,13 +1,14 @@
 // One call for the export routes: a figure's chart (kind default + stored view spec, chosen units) as SVG, PNG or PDF at a
-// journal column width, or its data as CSV, with the content type and a file name (the request's query: export-query.ts).
-import { chartSpecFor } from '@/lib/charts';
+// journal column width (Vega runs in a limited child process), or its data as CSV, with the content type and a file name.
+import { chartSpecFor, ChartDataError } from '@/lib/charts';
 import { snapshotFileName } from '@/lib/cite/citation';
+import { invalid } from '@/lib/domain-error';
 import type { DisplayUnits } from '@/lib/units';
 import type { ExportFormat } from './export-query';
 import { resultCsv } from './csv';
-import { renderPdf } from './render-pdf';
-import { renderPng } from './render-png';
-import { renderSvg } from './render-svg';
+import { renderSvgInChild } from './render-in-child';
+import { pdfFromSvg } from './render-pdf';
+import { pngFromSvg } from './render-png';
 import { DEFAULT_ASPECT, figureSize, type FigureWidth } from './widths';
 
 export interface ExportFigureInput {
@@ -59,22 +60,33 @@ export async function exportFigure(input: ExportFigureInput): Promise<ExportedFi
   const fileName = input.version ? snapshotFileName(input.label, input.version, input.format) : `${input.label}.${input.format}`;
   if (input.format === 'csv') return { body: resultCsv(input.result), contentType: CONTENT_TYPES.csv, fileName };
   const cssWidth = Math.round(figureSize(width, DEFAULT_ASPECT).width.cssPx);
-  const spec = chartSpecFor(input.kind, input.result, {
-    units: input.units ?? { system: 'dimensionless' },
-    params: input.params,
-    viewSpec: input.viewSpec,
-    width: cssWidth,
-    height: input.aspect === undefined ? undefined : Math.round(cssWidth * input.aspect),
-    fit: true,
-  });
+  const spec = chartSpecOf(input, cssWidth);
   if (input.format === 'svg') {
-    const { svg } = await renderSvg(spec, { width });
+    const { svg } = await renderSvgInChild(spec, { width });
     return { body: svg, contentType: CONTENT_TYPES.svg, fileName };
   }
+  const rendered = await renderSvgInChild(spec);
   if (input.format === 'png') {
-    const { png } = await renderPng(spec, { width });
+    const { png } = pngFromSvg(rendered, { width });
     return { body: png, contentType: CONTENT_TYPES.png, fileName };
   }
-  const { pdf } = await renderPdf(spec, { width, title: input.title ?? input.label, createdAt: input.createdAt });
+  const { pdf } = await pdfFromSvg(rendered, { width, title: input.title ?? input.label, createdAt: input.createdAt });
   return { body: pdf, contentType: CONTENT_TYPES.pdf, fileName };
+}
+
+/** The chart spec to export; a stored view spec the schema refuses, or a result the chart cannot use, is `invalid`. */
+function chartSpecOf(input: ExportFigureInput, cssWidth: number) {
+  try {
+    return chartSpecFor(input.kind, input.result, {
+      units: input.units ?? { system: 'dimensionless' },
+      params: input.params,
+      viewSpec: input.viewSpec,
+      width: cssWidth,
+      height: input.aspect === undefined ? undefined : Math.round(cssWidth * input.aspect),
+      fit: true,
+    });
+  } catch (error) {
+    if (error instanceof ChartDataError) throw invalid(`The figure cannot be exported: ${error.message}`);
+    throw error;
+  }
 }

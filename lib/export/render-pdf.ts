@@ -4,7 +4,7 @@ import PDFDocument from 'pdfkit';
 import SVGtoPDF from 'svg-to-pdfkit';
 import type { ChartSpec } from '@/lib/charts/common';
 import { dejavuFontPath, FONT_FAMILY } from './fonts';
-import { renderSvg, widthInCm } from './render-svg';
+import { type RenderedSvg, renderSvg, widthInCm } from './render-svg';
 import { cmToPt, type FigureWidth } from './widths';
 
 export interface RenderPdfOptions {
@@ -85,7 +85,12 @@ export function svgToPdf(svg: string, size: { width: number; height: number }, m
  * const { pdf, width } = await renderPdf(spec, { width: 'one-column' }) // width ≈ 243.78 pt (8.6 cm)
  */
 export async function renderPdf(spec: ChartSpec, options: RenderPdfOptions = {}): Promise<{ pdf: Buffer; width: number; height: number }> {
-  const { svg, width: w, height: h } = await renderSvg(spec);
+  return pdfFromSvg(await renderSvg(spec), options);
+}
+
+/** PDF bytes of an already rendered chart SVG (renderSvg or renderSvgInChild, without a physical width). */
+export async function pdfFromSvg(rendered: RenderedSvg, options: RenderPdfOptions = {}): Promise<{ pdf: Buffer; width: number; height: number }> {
+  const { svg, width: w, height: h } = rendered;
   const width = cmToPt(widthInCm(options.width ?? 'one-column'));
   const height = w > 0 ? (width * h) / w : width;
   const pdf = await svgToPdf(svg, { width, height }, { title: options.title, createdAt: options.createdAt });

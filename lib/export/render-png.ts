@@ -3,7 +3,7 @@
 import { Resvg } from '@resvg/resvg-js';
 import type { ChartSpec } from '@/lib/charts/common';
 import { dejavuFontPath, FONT_FAMILY } from './fonts';
-import { renderSvg, widthInCm } from './render-svg';
+import { type RenderedSvg, renderSvg, widthInCm } from './render-svg';
 import { cmToPx, type FigureWidth, PRINT_DPI } from './widths';
 
 export interface RenderPngOptions {
@@ -52,7 +52,12 @@ export function pngPixelWidth(width: RenderPngOptions['width'] = 'one-column', d
  * const { png, width } = await renderPng(spec, { width: 'one-column' }) // width === 1016
  */
 export async function renderPng(spec: ChartSpec, options: RenderPngOptions = {}): Promise<{ png: Buffer; width: number; height: number }> {
-  const { svg, width: w, height: h } = await renderSvg(spec);
+  return pngFromSvg(await renderSvg(spec), options);
+}
+
+/** PNG bytes of an already rendered chart SVG (renderSvg or renderSvgInChild, without a physical width). */
+export function pngFromSvg(rendered: RenderedSvg, options: RenderPngOptions = {}): { png: Buffer; width: number; height: number } {
+  const { svg, width: w, height: h } = rendered;
   const width = pngPixelWidth(options.width, options.dpi ?? PRINT_DPI);
   const png = svgToPng(svg, width);
   return { png, width, height: Math.round((width * h) / w) };

@@ -1,9 +1,7 @@
 // Server-side SVG of a Vega-Lite chart: vega-lite compile, a headless vega View (renderer 'none', no canvas), toSVG.
 // Data must be inline; every load is refused. Output is deterministic (element ids renumbered) and can carry a size in cm.
-import * as vega from 'vega';
-import { expressionInterpreter } from 'vega-interpreter';
-import { compile } from 'vega-lite';
 import type { ChartSpec } from '@/lib/charts/common';
+import { vegaLiteToSvg } from './vega-svg.mjs';
 import { FIGURE_WIDTH_CM, type FigureWidth } from './widths';
 
 /** An SVG document with its intrinsic size in CSS px (the viewBox). */
@@ -17,15 +15,6 @@ export interface RenderedSvg {
 export interface RenderSvgOptions {
   /** Give the SVG a physical width (journal column or cm) with the height in proportion; the viewBox is kept. */
   width?: FigureWidth | { cm: number };
-}
-
-/** A vega loader that refuses every URL and file: charts carry their data inline, so nothing may be read from outside. */
-function refusingLoader(): vega.Loader {
-  const base = vega.loader();
-  const refuse = async (uri: string) => {
-    throw new Error(`chart specs may not load external data (${JSON.stringify(uri)}); data must be inline`);
-  };
-  return Object.assign(base, { load: refuse, sanitize: refuse, http: refuse, file: refuse }) as vega.Loader;
 }
 
 /** Throw when any part of a spec refers to a URL (data.url, lookup sources, image url channels): data must be inline. */
@@ -96,24 +85,20 @@ function setRootSize(svg: string, width: string, height: string): string {
  */
 export async function renderSvg(spec: ChartSpec, options: RenderSvgOptions = {}): Promise<RenderedSvg> {
   assertInlineData(spec);
-  const vegaSpec = compile(spec).spec;
-  // Vega's interpreter evaluates expressions from their AST: no code is generated from spec text (no eval, no Function).
-  const view = new vega.View(vega.parse(vegaSpec, undefined, { ast: true }), {
-    renderer: 'none',
-    loader: refusingLoader(),
-    expr: expressionInterpreter,
-  });
-  try {
-    let svg = await view.toSVG();
-    svg = renumberIds(svg);
-    const { width, height } = intrinsicSize(svg);
-    if (options.width) {
-      const cm = widthInCm(options.width);
-      const heightCm = width > 0 ? (cm * height) / width : cm;
-      svg = setRootSize(svg, `${cm}cm`, `${Number(heightCm.toFixed(4))}cm`);
-    }
-    return { svg, width, height };
-  } finally {
-    view.finalize();
+  return finishSvg(await vegaLiteToSvg(spec), options);
+}
+
+/**
+ * Vega's raw SVG made deterministic (ids renumbered), measured, and given a physical width when asked. Shared by
+ * renderSvg (in process) and renderSvgInChild (export child process), so both give the same bytes.
+ */
+export function finishSvg(raw: string, options: RenderSvgOptions = {}): RenderedSvg {
+  let svg = renumberIds(raw);
+  const { width, height } = intrinsicSize(svg);
+  if (options.width) {
+    const cm = widthInCm(options.width);
+    const heightCm = width > 0 ? (cm * height) / width : cm;
+    svg = setRootSize(svg, `${cm}cm`, `${Number(heightCm.toFixed(4))}cm`);
   }
+  return { svg, width, height };
 }

@@ -51,7 +51,7 @@ export function isFigureKind(value: unknown): value is FigureKind {
 /** Human names of the kinds, for menus and headings. */
 export const KIND_LABELS = Object.fromEntries(FIGURE_KINDS.map((kind) => [kind, figureKind(kind).label])) as Record<FigureKind, string>;
 
-/** The chart views each kind offers (chosen with `view`, or `usermeta.view` in a stored view spec); the first is the default. */
+/** The chart views each kind offers (chosen with `view`, or `fluxfolio.view` in a stored view spec); the first is the default. */
 export const CHART_VIEWS = Object.fromEntries(FIGURE_KINDS.map((kind) => [kind, figureKind(kind).views])) as unknown as Record<FigureKind, readonly string[]>;
 
 /** The kinds a new figure can be computed for (data kinds get their figures from an upload). */

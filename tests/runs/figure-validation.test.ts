@@ -75,9 +75,12 @@ describe('figure validation', () => {
     expect(updateFigureSchema.safeParse({ caption: 'x'.repeat(2001) }).success).toBe(false);
   });
 
-  it('sanitises the view spec at write time with the one view-spec schema', () => {
-    const parsed = updateFigureSchema.parse({ viewSpec: { width: 300, data: { url: 'https://example.org/x.csv' }, usermeta: { href: 'x', view: 'levels' } } });
-    expect(parsed.viewSpec).toEqual({ width: 300, usermeta: { view: 'levels' } });
+  it('checks the view spec at write time with the one view-spec schema (an allow-list)', () => {
+    const parsed = updateFigureSchema.parse({ viewSpec: { width: 300, fluxfolio: { view: 'levels' } } });
+    expect(parsed.viewSpec).toEqual({ width: 300, fluxfolio: { view: 'levels' } });
+    const refused = issuePaths(updateFigureSchema.safeParse({ viewSpec: { width: 300, data: { url: 'https://example.org/x.csv' }, usermeta: { view: 'levels' } } }));
+    expect(refused).toContain('viewSpec.data');
+    expect(refused).toContain('viewSpec.usermeta');
     expect(issuePaths(updateFigureSchema.safeParse({ viewSpec: { big: 'x'.repeat(100_001) } }))).toContain('viewSpec');
   });
 });

@@ -106,7 +106,7 @@ describe('freezing', () => {
     const fig = await setFigureParams(figure.id, { ...SMALL_SPECTRUM, levels: 2 });
     const runId = await computedRun(fig);
     // Changed after the run finished, just before freezing: the snapshot carries these values.
-    await updateFigure({ id: figure.id, patch: { caption: 'Caption as edited before the freeze', viewSpec: { usermeta: { level: 1 } } } });
+    await updateFigure({ id: figure.id, patch: { caption: 'Caption as edited before the freeze', viewSpec: { fluxfolio: { level: 1 } } } });
     // The freeze waits for another transaction that holds the figure row and changes the caption again; a freeze that read
     // the figure before taking the lock (or without it) would freeze the earlier caption.
     let release!: () => void;
@@ -127,7 +127,7 @@ describe('freezing', () => {
     await holder;
     const snapshot = await freezing;
     expect(snapshot.caption).toBe('Caption committed while the freeze waited');
-    expect(snapshot.viewSpec).toEqual({ usermeta: { level: 1 } });
+    expect(snapshot.viewSpec).toEqual({ fluxfolio: { level: 1 } });
   });
 
   it('keeps a figure that has snapshots (delete answers 409)', async () => {

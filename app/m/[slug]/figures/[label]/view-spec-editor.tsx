@@ -13,7 +13,7 @@ export interface ViewSpecEditorProps {
   viewSpec: Record<string, unknown> | null;
   /** The kind's default view for this result (data values left out), shown for reference. */
   defaultView: unknown;
-  /** The alternative views this kind offers (chosen with usermeta.view). */
+  /** The alternative views this kind offers (chosen with fluxfolio.view). */
   views?: readonly string[];
   onSaved: (viewSpec: Record<string, unknown> | null) => void;
 }
@@ -34,7 +34,9 @@ export function ViewSpecEditor({ figureId, viewSpec, defaultView, views = [], on
       return { ok: false, message: `Not valid JSON: ${error instanceof Error ? error.message : String(error)}` };
     }
     const checked = viewSpecSchema.safeParse(json);
-    return checked.success ? { ok: true, value: checked.data } : { ok: false, message: checked.error.issues[0]?.message ?? 'Not a valid view spec' };
+    if (checked.success) return { ok: true, value: checked.data };
+    const issue = checked.error.issues[0];
+    return { ok: false, message: issue ? `${issue.path.length ? `${issue.path.join('.')}: ` : ''}${issue.message}` : 'Not a valid view spec' };
   };
 
   const save = async (value: Record<string, unknown> | null) => {
@@ -64,7 +66,7 @@ export function ViewSpecEditor({ figureId, viewSpec, defaultView, views = [], on
           Views of this kind: {views.map((v, k) => (
             <span key={v}>
               {k > 0 ? ', ' : ''}
-              <code className="rounded bg-slate-100 px-1 font-mono">{`{"usermeta": {"view": "${v}"}}`}</code>
+              <code className="rounded bg-slate-100 px-1 font-mono">{`{"fluxfolio": {"view": "${v}"}}`}</code>
             </span>
           ))}
           {views.includes('density') || views.includes('landscape') ? ' (add "level": n for another level).' : '.'}
