@@ -7,7 +7,10 @@ import { getUserByEmail } from '@/db/queries/users';
 import { acceptInvitation } from '@/lib/invitations/accept-invitation';
 import { createInvitation, INVITATION_LIFETIME_MS } from '@/lib/invitations/create-invitation';
 import { getInvitationByToken } from '@/lib/invitations/get-invitation';
-import { createManuscript, createUser, getManuscriptRow, getMembershipRole, RUN, type TestUser } from './web-support';
+import { RUN_TAG } from '../helpers/db';
+import { getManuscriptRow, getMembershipRole } from '../helpers/manuscript-rows';
+import { createTestManuscript } from '../helpers/test-manuscripts';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 let owner: TestUser;
 let author: TestUser;
@@ -17,9 +20,9 @@ let manuscript: { id: string };
 
 beforeAll(async () => {
   [owner, author, coauthor, stranger] = await Promise.all(
-    ['rules-owner', 'rules-author', 'rules-coauthor', 'rules-stranger'].map((label) => createUser({ label })),
+    ['rules-owner', 'rules-author', 'rules-coauthor', 'rules-stranger'].map((label) => createTestUser({ label })),
   );
-  manuscript = await createManuscript({
+  manuscript = await createTestManuscript({
     title: 'Invitation rules',
     members: [
       { user: owner, role: 'owner' },
@@ -63,13 +66,13 @@ describe('accepting', () => {
   });
 
   it('never lowers a role: a person who became author meanwhile stays author; a coauthor invited as owner is raised', async () => {
-    const lower = await createUser({ label: 'rules-lower' });
+    const lower = await createTestUser({ label: 'rules-lower' });
     const { token: coauthorLink } = await invite(lower.email, 'coauthor');
     await saveMembership({ manuscriptId: manuscript.id, userId: lower.id, role: 'author' });
     await expect(acceptInvitation({ token: coauthorLink, user: lower })).resolves.toMatchObject({ role: 'author' });
     expect(await getMembershipRole(manuscript.id, lower.id)).toBe('author');
 
-    const raised = await createUser({ label: 'rules-raise' });
+    const raised = await createTestUser({ label: 'rules-raise' });
     const { token: ownerLink } = await invite(raised.email, 'owner');
     await saveMembership({ manuscriptId: manuscript.id, userId: raised.id, role: 'coauthor' });
     await expect(acceptInvitation({ token: ownerLink, user: raised })).resolves.toMatchObject({ role: 'owner' });
@@ -87,7 +90,7 @@ describe('inviting', () => {
   });
 
   it('replaces the pending invitation of the same address: the old link stops working', async () => {
-    const person = await createUser({ label: 'rules-replace' });
+    const person = await createTestUser({ label: 'rules-replace' });
     const first = await invite(person.email, 'author');
     const second = await invite(person.email, 'coauthor');
     expect(await getInvitationByToken({ token: first.token })).toBeNull();
@@ -99,7 +102,7 @@ describe('inviting', () => {
 describe('links that cannot be accepted', () => {
   it('refuses an expired link with a conflict that says to ask again', async () => {
     const longAgo = new Date(Date.now() - INVITATION_LIFETIME_MS - 60_000);
-    const { token } = await invite(`expired.${RUN}@tests.fluxfolio.example.org`, 'coauthor', longAgo);
+    const { token } = await invite(`expired.${RUN_TAG}@tests.fluxfolio.example.org`, 'coauthor', longAgo);
     expect((await getInvitationByToken({ token }))?.expired).toBe(true);
     await expect(
       acceptInvitation({ token, signUp: { name: 'Late Reader', passwordHash: 'not-used' } }),
@@ -107,11 +110,11 @@ describe('links that cannot be accepted', () => {
       code: 'conflict',
       message: 'This invitation has expired; ask an owner of the manuscript to invite you again',
     });
-    expect(await getUserByEmail({ email: `expired.${RUN}@tests.fluxfolio.example.org` })).toBeNull();
+    expect(await getUserByEmail({ email: `expired.${RUN_TAG}@tests.fluxfolio.example.org` })).toBeNull();
   });
 
   it('signs up a new address (verified by the link) but refuses sign-up for an address that has an account', async () => {
-    const fresh = `fresh.${RUN}@tests.fluxfolio.example.org`;
+    const fresh = `fresh.${RUN_TAG}@tests.fluxfolio.example.org`;
     const { token } = await invite(fresh, 'author');
     const accepted = await acceptInvitation({ token, signUp: { name: 'New Author', passwordHash: 'hash-from-test' } });
     expect(accepted).toMatchObject({ role: 'author', email: fresh, accountCreated: true });

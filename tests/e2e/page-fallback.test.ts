@@ -3,9 +3,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { sqlClient } from '@/db';
-import { signInWithPassword } from '../helpers/app';
-import { launchBrowser, newPage, signInInBrowser } from '../helpers/browser';
-import { createTestTeam, type TestTeam } from '../helpers/db';
+import { launchBrowser, newPage } from '../helpers/browser';
+import { signedInClient } from '../helpers/http-client';
+import { createTestTeam, type TestTeam } from '../helpers/test-manuscripts';
+import { SignInPage } from './pages/sign-in-page';
 
 let browser: Browser;
 let team: TestTeam;
@@ -15,7 +16,7 @@ const label = 'fallback-levels';
 beforeAll(async () => {
   browser = await launchBrowser();
   team = await createTestTeam({ title: 'Fallback data' });
-  const owner = await signInWithPassword(team.owner.email, team.owner.password);
+  const owner = await signedInClient(team.owner);
   const created = await owner.post(`/api/manuscripts/${team.manuscript.id}/figures`, {
     label,
     kind: 'spectrum',
@@ -45,7 +46,7 @@ function recordApiGets(page: Page): string[] {
 describe('server-loaded data as SWR fallback', () => {
   it('the manuscript page does not fetch its members or invitations until a role changes', async () => {
     const page = await newPage(browser);
-    await signInInBrowser(page, team.owner.email, team.owner.password);
+    await new SignInPage(page).signIn(team.owner);
     const gets = recordApiGets(page);
     await page.goto(`/m/${team.manuscript.slug}`);
     await page.getByTestId('members').waitFor();
@@ -67,7 +68,7 @@ describe('server-loaded data as SWR fallback', () => {
 
   it('the figure page does not fetch the figure it rendered', async () => {
     const page = await newPage(browser);
-    await signInInBrowser(page, team.author.email, team.author.password);
+    await new SignInPage(page).signIn(team.author);
     const gets = recordApiGets(page);
     await page.goto(`/m/${team.manuscript.slug}/figures/${label}`);
     await page.getByText('No finished run yet.').waitFor();

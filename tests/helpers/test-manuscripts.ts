@@ -1,6 +1,7 @@
 // Manuscripts for the tests in the test database: one factory for a manuscript with members (unique slug, the title as
 // given), the standard team of owner, author, coauthor, site admin and outsider, and a frozen snapshot row.
 import { figures, manuscripts, memberships, results, snapshots, type Manuscript, type ManuscriptStatus, type MemberRole } from '@/db/schema';
+import type { TaskSpec } from '@/lib/physics/schemas';
 import { testDb, uniqueTag } from './db';
 import { createTestUser, type TestUser } from './test-users';
 
@@ -94,19 +95,22 @@ export async function createTestTeam({ title = 'Team manuscript' }: { title?: st
   return { manuscript, owner, author, coauthor, admin, outsider };
 }
 
+/** A valid small spectrum spec for rows that only need to exist; nothing computes it. */
+const ROW_SPEC: TaskSpec = { task: 'spectrum', well: { disk: { center: [0, 0], radius: 1 } }, grid: { h: 0.25 }, tubes: [], levels: 4 };
+
 /** Freeze one snapshot v1 for the manuscript (figure + result + snapshot rows, no solver run), as the figures step would. */
 export async function addTestSnapshot({ manuscriptId }: { manuscriptId: string }): Promise<void> {
   const tag = uniqueTag();
   const [figure] = await testDb
     .insert(figures)
-    .values({ manuscriptId, label: `fig-${tag}`, kind: 'spectrum', params: {} })
+    .values({ manuscriptId, label: `fig-${tag}`, kind: 'spectrum', params: ROW_SPEC })
     .returning();
   const [result] = await testDb
     .insert(results)
     .values({
       inputHash: `test-input-${tag}`,
       solverVersion: 'test',
-      params: {},
+      params: ROW_SPEC,
       data: {},
       diagnostics: {},
       resultHash: `test-result-${tag}`,
@@ -119,7 +123,7 @@ export async function addTestSnapshot({ manuscriptId }: { manuscriptId: string }
     kind: 'spectrum',
     label: figure.label,
     caption: '',
-    params: {},
+    params: ROW_SPEC,
     solverVersion: 'test',
     resultId: result.id,
     resultHash: result.resultHash,

@@ -2,10 +2,12 @@
 // a signed-out visitor and a signed-in member get HTTP 404 and, in the browser, the same page as an unknown path.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { AppClient, signInWithPassword } from '../helpers/app';
-import { launchBrowser, newPage, signInInBrowser } from '../helpers/browser';
-import { createTestUser, uniqueTag } from '../helpers/db';
+import { SignInPage } from '../e2e/pages/sign-in-page';
+import { launchBrowser, newPage } from '../helpers/browser';
+import { uniqueTag } from '../helpers/db';
+import { HttpClient, signedInClient } from '../helpers/http-client';
 import { waitForMailTo } from '../helpers/mail';
+import { createTestUser } from '../helpers/test-users';
 import { sendMail } from '@/lib/mail/send-mail';
 
 const subject = `Mailbox check ${uniqueTag()}`;
@@ -30,14 +32,14 @@ async function shown(page: Page, pathname: string): Promise<{ status: number | u
 }
 
 /** The raw HTTP answer: its status, and whether the message leaks anywhere in the body (scripts included). */
-async function raw(client: AppClient, pathname: string): Promise<{ status: number; leaks: boolean }> {
+async function raw(client: HttpClient, pathname: string): Promise<{ status: number; leaks: boolean }> {
   const response = await client.get(pathname);
   return { status: response.status, leaks: (await response.text()).includes(subject) };
 }
 
 describe('dev mailbox page', () => {
   it('answers a signed-out visitor with 404 and the not-found page of an unknown path', async () => {
-    expect(await raw(new AppClient(), '/dev/mailbox')).toEqual({ status: 404, leaks: false });
+    expect(await raw(new HttpClient(), '/dev/mailbox')).toEqual({ status: 404, leaks: false });
     const page = await newPage(browser);
     const missing = await shown(page, `/no-such-page-${uniqueTag()}`);
     const mailbox = await shown(page, '/dev/mailbox');
@@ -49,10 +51,10 @@ describe('dev mailbox page', () => {
 
   it('answers a signed-in member who is not a site admin the same way', async () => {
     const member = await createTestUser({ label: 'mailbox-member' });
-    const client = await signInWithPassword(member.email, member.password);
+    const client = await signedInClient(member);
     expect(await raw(client, '/dev/mailbox')).toEqual({ status: 404, leaks: false });
     const page = await newPage(browser);
-    await signInInBrowser(page, member.email, member.password);
+    await new SignInPage(page).signIn(member);
     const missing = await shown(page, `/no-such-page-${uniqueTag()}`);
     const mailbox = await shown(page, '/dev/mailbox');
     expect(mailbox.status).toBe(404);
@@ -62,10 +64,10 @@ describe('dev mailbox page', () => {
 
   it('shows the stored messages to a site admin', async () => {
     const admin = await createTestUser({ role: 'admin', label: 'mailbox-admin' });
-    const client = await signInWithPassword(admin.email, admin.password);
+    const client = await signedInClient(admin);
     expect(await raw(client, '/dev/mailbox')).toEqual({ status: 200, leaks: true });
     const page = await newPage(browser);
-    await signInInBrowser(page, admin.email, admin.password);
+    await new SignInPage(page).signIn(admin);
     const mailbox = await shown(page, '/dev/mailbox');
     expect(mailbox.status).toBe(200);
     expect(mailbox.text).toContain(subject);

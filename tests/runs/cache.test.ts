@@ -114,7 +114,7 @@ describe('result cache', () => {
     const figure = await createTestFigure(world, { columns: ['alpha', 'E0'], rows: [[0, 5.8], [0.5, 9.9]] }, { kind: 'uploaded-data' });
     expect(figure.kind).toBe('uploaded-data');
     await expect(startRun({ figure, user: world.user, enqueue: null })).rejects.toMatchObject({
-      status: 409,
+      code: 'conflict',
       message: expect.stringContaining('"uploaded-data" are not computed'),
     });
     const rows = await db.select({ n: sql<number>`count(*)::int` }).from(runs).where(eq(runs.figureId, figure.id));

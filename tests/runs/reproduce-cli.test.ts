@@ -37,8 +37,8 @@ beforeAll(async () => {
   dir = mkdtempSync(path.join(tmpdir(), 'fluxfolio-reproduce-'));
   const world = await createWorld('author');
   const figure = await createTestFigure(world, { ...SMALL_SPECTRUM, levels: 5 });
-  const { run, fromCache } = await startRun({ figure, user: world.user, enqueue: null });
-  if (!fromCache) await executeRun(run.id);
+  const { run } = await startRun({ figure, user: world.user, enqueue: null });
+  if (run.status !== 'succeeded') await executeRun(run.id);
   const snapshot = await freezeRun({ runId: run.id, user: world.user });
   const context = await getSnapshotContext({ id: snapshot.id });
   bundle = JSON.parse(JSON.stringify(snapshotBundle(snapshot, (await getResultById({ id: snapshot.resultId }))!, context!)));

@@ -6,15 +6,16 @@ import { sqlClient } from '@/db';
 import { manuscripts } from '@/db/schema';
 import { hashPassword } from '@/lib/auth/password';
 import { MAX_JSON_BODY_BYTES } from '@/lib/http/handler';
-import { APP_URL, signInWithPassword, type AppClient } from '../helpers/app';
-import { createTestUser, testDb, uniqueTag, type TestUser } from '../helpers/db';
+import { testDb, uniqueTag } from '../helpers/db';
+import { APP_URL, signedInClient, type HttpClient } from '../helpers/http-client';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 let user: TestUser;
-let client: AppClient;
+let client: HttpClient;
 
 beforeAll(async () => {
   user = await createTestUser({ label: 'bodies' });
-  client = await signInWithPassword(user.email, user.password);
+  client = await signedInClient(user);
 });
 
 afterAll(async () => {

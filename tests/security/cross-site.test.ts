@@ -5,15 +5,16 @@ import { eq, count } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sqlClient } from '@/db';
 import { manuscripts } from '@/db/schema';
-import { APP_URL, signInWithPassword, type AppClient } from '../helpers/app';
-import { createTestUser, testDb, uniqueTag, type TestUser } from '../helpers/db';
+import { testDb, uniqueTag } from '../helpers/db';
+import { APP_URL, signedInClient, type HttpClient } from '../helpers/http-client';
+import { createTestUser, type TestUser } from '../helpers/test-users';
 
 let user: TestUser;
-let client: AppClient;
+let client: HttpClient;
 
 beforeAll(async () => {
   user = await createTestUser({ label: 'cross-site' });
-  client = await signInWithPassword(user.email, user.password);
+  client = await signedInClient(user);
 });
 
 afterAll(async () => {

@@ -2,7 +2,7 @@
 // the header builder's https-only parts. The CSP is per request (a fresh nonce) and never admits eval.
 import { describe, expect, it } from 'vitest';
 import { securityHeaders, servedOverHttps } from '@/lib/http/security-headers';
-import { APP_URL } from '../helpers/app';
+import { APP_URL } from '../helpers/http-client';
 
 function expectSecurityHeaders(response: Response, what: string): void {
   const csp = response.headers.get('content-security-policy');

@@ -11,8 +11,11 @@ import { forgetHit, hit } from '@/lib/rate-limit/hit';
 import { INVITATIONS_PER_MANUSCRIPT, PASSWORD_PER_ACCOUNT, SIGN_IN_LINK_PER_ADDRESS } from '@/lib/rate-limit/limits';
 import { RateLimitedError } from '@/lib/rate-limit/rate-limited-error';
 import { listMessages } from '@/lib/mail/mailbox';
-import { AppClient, APP_URL, signInWithPassword } from '../helpers/app';
-import { createTestTeam, createTestUser, testDb, uniqueTag } from '../helpers/db';
+import { testDb, uniqueTag } from '../helpers/db';
+import { APP_URL, HttpClient, signedInClient } from '../helpers/http-client';
+import { createTestTeam } from '../helpers/test-manuscripts';
+import { createTestUser } from '../helpers/test-users';
+import { rejectionOf } from '../helpers/thrown';
 import { waitForMailTo } from '../helpers/mail';
 
 afterAll(async () => {
@@ -26,7 +29,7 @@ function median(values: number[]): number {
 
 /** One password attempt through next-auth's form post; returns the response (302 on an answer, 429 when limited). */
 async function passwordAttempt(email: string, password: string): Promise<{ response: Response; ms: number }> {
-  const client = new AppClient();
+  const client = new HttpClient();
   const csrfToken = await client.csrfToken();
   const started = performance.now();
   const response = await client.fetch('/api/auth/callback/credentials', {
@@ -40,7 +43,7 @@ async function passwordAttempt(email: string, password: string): Promise<{ respo
 }
 
 async function requestSignInLink(email: string): Promise<Response> {
-  const client = new AppClient();
+  const client = new HttpClient();
   const csrfToken = await client.csrfToken();
   const response = await client.fetch('/api/auth/signin/email', {
     method: 'POST',
@@ -60,7 +63,8 @@ describe('the limit module (lib/rate-limit, PostgreSQL)', () => {
     await expect(hit({ bucket: 'test-unit', key, limit: 3, windowSeconds: 60 })).rejects.toMatchObject({
       retryAfterSeconds: expect.any(Number),
     });
-    const error = await hit({ bucket: 'test-unit', key, limit: 3, windowSeconds: 60 }).catch((e: unknown) => e);
+    const error = await rejectionOf(hit({ bucket: 'test-unit', key, limit: 3, windowSeconds: 60 }));
+    expect(error).toBeInstanceOf(RateLimitedError);
     expect((error as RateLimitedError).retryAfterSeconds).toBeGreaterThanOrEqual(1);
     expect((error as RateLimitedError).retryAfterSeconds).toBeLessThanOrEqual(60);
     // Another key and another bucket are counted apart.
@@ -110,7 +114,7 @@ describe('password sign-in', () => {
     expect(right.headers.getSetCookie().some((line) => /session-token=[^;]+/.test(line))).toBe(false);
     // Other accounts are not affected.
     const other = await createTestUser({ label: 'unaffected' });
-    await expect(signInWithPassword(other.email, other.password)).resolves.toBeInstanceOf(AppClient);
+    await expect(signedInClient(other)).resolves.toBeInstanceOf(HttpClient);
   });
 
   it('does not count successful sign-ins', async () => {
@@ -159,7 +163,7 @@ describe('sign-in link mail', () => {
     for (let i = 0; i < SIGN_IN_LINK_PER_ADDRESS.limit; i += 1) {
       expect((await requestSignInLink(address)).status, `request ${i + 1}`).toBe(302);
     }
-    const client = new AppClient();
+    const client = new HttpClient();
     const csrfToken = await client.csrfToken();
     const limited = await client.fetch('/api/auth/signin/email', {
       method: 'POST',
@@ -177,7 +181,7 @@ describe('sign-in link mail', () => {
 describe('invitations', () => {
   it('refuses invitations beyond the daily number per manuscript with 429 and stores none', async () => {
     const team = await createTestTeam({ title: 'Invitation limit' });
-    const owner = await signInWithPassword(team.owner.email, team.owner.password);
+    const owner = await signedInClient(team.owner);
     const invite = (email: string) => owner.post(`/api/manuscripts/${team.manuscript.id}/members`, { email, role: 'coauthor' });
     expect((await invite(`first.${uniqueTag()}@tests.fluxfolio.example.org`)).status).toBe(201);
     // Fill the rest of the day's allowance in the same bucket the route counts in (sending 49 mails adds nothing).
@@ -196,7 +200,7 @@ describe('invitations', () => {
     expect(n).toBe(0);
     // Another manuscript is not affected.
     const other = await createTestTeam({ title: 'Invitation limit other' });
-    const otherOwner = await signInWithPassword(other.owner.email, other.owner.password);
+    const otherOwner = await signedInClient(other.owner);
     const ok = await otherOwner.post(`/api/manuscripts/${other.manuscript.id}/members`, {
       email: `fine.${uniqueTag()}@tests.fluxfolio.example.org`,
       role: 'coauthor',

@@ -10,16 +10,17 @@ import { parseTaskSpec } from '@/lib/physics/schemas';
 import { SOLVER_VERSION } from '@/lib/physics/version';
 import { inputHash } from '@/lib/runs/input-hash';
 import { ACTIVE_RUNS_PER_FIGURE, ACTIVE_RUNS_PER_PERSON } from '@/lib/runs/start-run';
-import { signInWithPassword, type AppClient } from '../helpers/app';
-import { createTestTeam, testDb, type TestTeam } from '../helpers/db';
+import { testDb } from '../helpers/db';
+import { signedInClient, type HttpClient } from '../helpers/http-client';
+import { createTestTeam, type TestTeam } from '../helpers/test-manuscripts';
 import { createTestFigure, SMALL_SPECTRUM } from '../runs/fixtures';
 
 let team: TestTeam;
-let author: AppClient;
+let author: HttpClient;
 
 beforeAll(async () => {
   team = await createTestTeam({ title: 'Run quota' });
-  author = await signInWithPassword(team.author.email, team.author.password);
+  author = await signedInClient(team.author);
 });
 
 afterAll(async () => {
@@ -37,7 +38,7 @@ async function queuedRun(figure: Figure, hash = randomUUID().replace(/-/g, '').p
   return insertRun({
     values: {
       figureId: figure.id,
-      params: figure.params,
+      params: parseTaskSpec(figure.params),
       inputHash: hash,
       solverVersion: SOLVER_VERSION,
       status: 'queued',

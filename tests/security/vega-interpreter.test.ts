@@ -5,9 +5,11 @@ import type { Browser } from 'playwright-core';
 import { sqlClient } from '@/db';
 import type { ChartSpec } from '@/lib/charts/common';
 import { renderSvg } from '@/lib/export/render-svg';
-import { signInWithPassword } from '../helpers/app';
-import { launchBrowser, newPage, screenshot, signInInBrowser } from '../helpers/browser';
-import { createTestTeam, uniqueTag, type TestTeam } from '../helpers/db';
+import { SignInPage } from '../e2e/pages/sign-in-page';
+import { launchBrowser, newPage, screenshot } from '../helpers/browser';
+import { uniqueTag } from '../helpers/db';
+import { signedInClient } from '../helpers/http-client';
+import { createTestTeam, type TestTeam } from '../helpers/test-manuscripts';
 
 /** A chart whose only way to show "calc42" is a calculate transform evaluated at render time. */
 const CALCULATED: ChartSpec = {
@@ -42,7 +44,7 @@ describe('in the browser under the CSP', () => {
   beforeAll(async () => {
     browser = await launchBrowser();
     team = await createTestTeam({ title: 'Vega interpreter' });
-    const author = await signInWithPassword(team.author.email, team.author.password);
+    const author = await signedInClient(team.author);
     const created = await author.post(`/api/manuscripts/${team.manuscript.id}/figures`, {
       label,
       kind: 'flux-sweep',
@@ -66,7 +68,6 @@ describe('in the browser under the CSP', () => {
             encoding: { x: { field: 'alpha', type: 'quantitative' }, y: { field: 'E', type: 'quantitative' }, text: { field: 'tag' } },
           },
         ],
-        usermeta: { embedOptions: { ast: false, expr: null, actions: true } },
       },
     });
     expect(created.status, await created.clone().text()).toBe(201);
@@ -96,14 +97,14 @@ describe('in the browser under the CSP', () => {
         console.error(`CSP violation: ${event.violatedDirective} ${event.blockedURI} at ${event.sourceFile}:${event.lineNumber}:${event.columnNumber} ${event.sample}`);
       });
     });
-    await signInInBrowser(page, team.author.email, team.author.password);
+    await new SignInPage(page).signIn(team.author);
     await page.goto(`/m/${team.manuscript.slug}/figures/${label}`);
     const chart = page.locator('[data-testid="chart"] svg').first();
     await chart.waitFor({ timeout: 120_000 });
     await expect.poll(async () => (await chart.textContent()) ?? '', { timeout: 20_000 }).toContain('calc42');
     await screenshot(page, 'security-vega-interpreter');
     expect(await page.locator('[data-testid="chart"] [role="alert"]').count()).toBe(0);
-    // Stored embed options (usermeta) are ignored: no action menu.
+    // The app's own embed options (stored usermeta is refused, tests/security/view-spec.test.ts): no action menu.
     expect(await page.locator('.vega-actions, details[title="Click to view actions"]').count()).toBe(0);
     expect(problems).toEqual([]);
   }, 180_000);
