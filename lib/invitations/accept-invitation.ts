@@ -8,7 +8,7 @@ import { createUserWithPassword } from '@/db/queries/users';
 import type { MemberRole } from '@/db/schema';
 import { higherRole } from '@/lib/authz/roles';
 import { conflict, forbidden, isDomainError, notFound } from '@/lib/domain-error';
-import { invitationExpired } from './get-invitation';
+import { getInvitationByToken, invitationExpired } from './get-invitation';
 import { hashInvitationToken } from './invitation-token';
 
 export interface AcceptedInvitation {
@@ -21,6 +21,23 @@ export interface AcceptedInvitation {
 }
 
 const UNKNOWN = 'This invitation does not exist or was replaced by a newer one';
+const USED = 'This invitation has already been used';
+const EXPIRED = 'This invitation has expired; ask an owner of the manuscript to invite you again';
+const ACCOUNT_EXISTS = 'An account already uses this e-mail address; sign in to accept the invitation';
+
+/**
+ * Whether a sign-up through this link could succeed, checked before any password is hashed (so an unknown or spent
+ * token costs no bcrypt time). The same rules hold again inside {@link acceptInvitation}'s transaction.
+ *
+ * @throws DomainError `not-found` for an unknown token; `conflict` when used, expired or the address has an account
+ */
+export async function assertOpenForSignUp({ token, now = new Date() }: { token: string; now?: Date }): Promise<void> {
+  const invitation = await getInvitationByToken({ token, now });
+  if (!invitation) throw notFound(UNKNOWN);
+  if (invitation.acceptedAt) throw conflict(USED);
+  if (invitation.expired) throw conflict(EXPIRED);
+  if (invitation.accountExists) throw conflict(ACCOUNT_EXISTS);
+}
 
 /**
  * Accept an invitation.
@@ -57,10 +74,10 @@ export async function acceptInvitation({
           return { manuscriptId, manuscriptSlug, role: membership.role, userId: user.id, email: user.email, accountCreated: false };
         }
       }
-      throw conflict('This invitation has already been used');
+      throw conflict(USED);
     }
     if (invitationExpired(invitation.expiresAt, now)) {
-      throw conflict('This invitation has expired; ask an owner of the manuscript to invite you again');
+      throw conflict(EXPIRED);
     }
 
     let userId: string;
@@ -80,7 +97,7 @@ export async function acceptInvitation({
         emailVerified: now,
       }).catch((error: unknown) => {
         if (isDomainError(error, 'conflict')) {
-          throw conflict('An account already uses this e-mail address; sign in to accept the invitation');
+          throw conflict(ACCOUNT_EXISTS);
         }
         throw error;
       });
