@@ -1,12 +1,12 @@
 // Chart specs for every figure kind, built from REAL solver results on coarse grids: each compiles with vega-lite without
 // warnings and renders to SVG on the server; exact overlays, units, markers and view-spec merging are checked.
-import { compile } from 'vega-lite';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { chartSpecFor, ChartDataError, defaultViewSpec, editableViewSpec, mergeViewSpec, viewSpecSchema } from '@/lib/charts';
 import { diskLevels } from '@/lib/charts/exact-levels';
 import { renderSvg } from '@/lib/export/render-svg';
 import { DIMENSIONLESS, energyUnitMeV } from '@/lib/units';
 import { SMALL_SPECS, smallResult } from './solver-results';
+import { vegaLiteWarnings as compileQuietly } from '../helpers/vega-lite-warnings';
 
 type Computed = Awaited<ReturnType<typeof smallResult>>;
 const results: Record<string, Computed> = {};
@@ -15,19 +15,6 @@ beforeAll(async () => {
   for (const name of Object.keys(SMALL_SPECS)) results[name] = await smallResult(name);
 }, 600_000);
 
-/** Compile with a logger that collects warnings (vega-lite reports dropped encodings, bad scales… as warnings). */
-function compileQuietly(spec: unknown): string[] {
-  const warnings: string[] = [];
-  const logger = {
-    level: () => logger,
-    error: (...m: unknown[]) => (warnings.push(`error: ${m.join(' ')}`), logger),
-    warn: (...m: unknown[]) => (warnings.push(m.join(' ')), logger),
-    info: () => logger,
-    debug: () => logger,
-  };
-  compile(spec as never, { logger: logger as never });
-  return warnings;
-}
 
 /** All inline data values of a spec (top level, layers, concatenated panels). */
 function dataOf(spec: unknown): Record<string, unknown>[] {

@@ -1,12 +1,12 @@
 // The figure-kind registry: one kind per solver task and the uploaded-data kind; each kind's starting parameters pass
 // its own schema, and its default chart builds from a real small solver result (coarse grids) or, for data, a small table.
-import { compile } from 'vega-lite';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { defaultViewSpec } from '@/lib/charts';
 import { CHART_VIEWS, COMPUTED_FIGURE_KINDS, defaultParams, FIGURE_KIND_REGISTRY, FIGURE_KINDS, figureKind, figureKindSchema, KIND_LABELS } from '@/lib/figure-kinds/registry';
 import { runTask, TASK_NAMES } from '@/lib/physics/run-task';
 import { parseTaskSpec, type TaskSpec } from '@/lib/physics/schemas';
 import { SMALL_SPECS } from './solver-results';
+import { vegaLiteWarnings as compileWarnings } from '../helpers/vega-lite-warnings';
 
 /** A small spec of tests/notes/solver-results.ts (one per task on coarse grids, plus a region scan). */
 function smallSpecOf(name: string): TaskSpec {
@@ -31,19 +31,6 @@ beforeAll(async () => {
   }
 }, 600_000);
 
-/** Vega-Lite warnings and errors of a spec (empty when it compiles cleanly). */
-function compileWarnings(spec: unknown): string[] {
-  const warnings: string[] = [];
-  const logger = {
-    level: () => logger,
-    error: (...m: unknown[]) => (warnings.push(`error: ${m.join(' ')}`), logger),
-    warn: (...m: unknown[]) => (warnings.push(m.join(' ')), logger),
-    info: () => logger,
-    debug: () => logger,
-  };
-  compile(spec as never, { logger: logger as never });
-  return warnings;
-}
 
 describe('figure-kind registry', () => {
   it('has exactly one kind per solver task, named like the task, plus uploaded data without a task', () => {
