@@ -1,4 +1,4 @@
-// The root layout: Inter (self-hosted via next/font/local), KaTeX styles for formulas, global CSS,
+// The root layout: Inter, Source Serif 4 and IBM Plex Mono (self-hosted via next/font/local), KaTeX styles, global CSS,
 // the site header and the client providers (SWR, toasts).
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
@@ -19,16 +19,36 @@ const inter = localFont({
   display: 'swap',
 });
 
+const sourceSerif = localFont({
+  src: [
+    { path: './fonts/source-serif-4-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: './fonts/source-serif-4-latin-400-italic.woff2', weight: '400', style: 'italic' },
+    { path: './fonts/source-serif-4-latin-600-normal.woff2', weight: '600', style: 'normal' },
+    { path: './fonts/source-serif-4-latin-600-italic.woff2', weight: '600', style: 'italic' },
+  ],
+  variable: '--font-source-serif',
+  display: 'swap',
+});
+
+const plexMono = localFont({
+  src: [
+    { path: './fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400', style: 'normal' },
+    { path: './fonts/ibm-plex-mono-latin-500-normal.woff2', weight: '500', style: 'normal' },
+  ],
+  variable: '--font-plex-mono',
+  display: 'swap',
+});
+
 export const metadata: Metadata = {
   title: { default: 'Fluxfolio', template: '%s · Fluxfolio' },
   description: 'Figure notes with live, reproducible spectra for groups studying charged particles threaded by magnetic flux.',
 };
 
-export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#312e81' };
+export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#114f54' };
 
 export default function RootLayout({ children }: { children: ReactNode }) {
   return (
-    <html lang="en" className={inter.variable}>
+    <html lang="en" className={`${inter.variable} ${sourceSerif.variable} ${plexMono.variable}`}>
       <body className="min-h-screen font-sans">
         <a
           href="#main"
